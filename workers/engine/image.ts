@@ -1,0 +1,60 @@
+import sharp from 'sharp'
+import { EngineRefusal } from './errors'
+
+/** An 8-bit greyscale image, row-major, in photo pixels (x right, y down). */
+export interface GreyImage {
+  data: Uint8Array
+  width: number
+  height: number
+}
+
+/** Decodes a photo to full-resolution greyscale with its EXIF orientation applied. */
+export async function decodeGrey(bytes: Buffer): Promise<GreyImage> {
+  try {
+    const { data, info } = await sharp(bytes, { failOn: 'error', limitInputPixels: 80_000_000 })
+      .rotate()
+      .greyscale()
+      .raw()
+      .toBuffer({ resolveWithObject: true })
+    if (info.channels !== 1) throw new Error(`expected 1 channel, got ${info.channels}`)
+    return { data: new Uint8Array(data.buffer, data.byteOffset, data.length), width: info.width, height: info.height }
+  } catch (err) {
+    throw new EngineRefusal('IMAGE_UNREADABLE', err instanceof Error ? err.message : String(err))
+  }
+}
+
+/** Bilinear sample at a sub-pixel position (pixel centres at integers); NaN outside the image. */
+export function sample(img: GreyImage, x: number, y: number): number {
+  const x0 = Math.floor(x)
+  const y0 = Math.floor(y)
+  if (x0 < 0 || y0 < 0 || x0 >= img.width - 1 || y0 >= img.height - 1) return NaN
+  const fx = x - x0
+  const fy = y - y0
+  const i = y0 * img.width + x0
+  const d = img.data
+  const top = d[i] + (d[i + 1] - d[i]) * fx
+  const bottom = d[i + img.width] + (d[i + img.width + 1] - d[i + img.width]) * fx
+  return top + (bottom - top) * fy
+}
+
+/**
+ * Position of the extremum of a sampled profile, refined with a three-point parabola around the best sample.
+ * Returns the fractional index and the peak value, or null if the best sample sits on the profile's end.
+ */
+export function peakIndex(values: ArrayLike<number>, sign: 1 | -1): { at: number; value: number } | null {
+  let best = -1
+  let bestValue = -Infinity
+  for (let i = 0; i < values.length; i++) {
+    const v = sign * values[i]
+    if (v > bestValue) {
+      bestValue = v
+      best = i
+    }
+  }
+  if (best <= 0 || best >= values.length - 1 || !Number.isFinite(bestValue)) return null
+  const a = sign * values[best - 1]
+  const c = sign * values[best + 1]
+  const denom = a - 2 * bestValue + c
+  const offset = denom < 0 ? (0.5 * (a - c)) / denom : 0
+  return { at: best + offset, value: sign * (bestValue - 0.25 * (a - c) * offset) }
+}
