@@ -1,0 +1,70 @@
+import type { Cv } from './opencv'
+import { withMats } from './opencv'
+import type { GreyImage } from './image'
+import { apply, type Mat3, type Pt } from './projective'
+import { distort, type Distortion } from './camera'
+
+/**
+ * A rectified view of a rectangle of the runner's plane: pixel (u, v) shows card-frame point
+ * (x0 + u / pxPerMm, y0 + v / pxPerMm), resampled from the photo through the offset-plane homography and the lens
+ * model. `inside` marks pixels whose source lies inside the photo.
+ */
+export interface Strip {
+  img: GreyImage
+  inside: Uint8Array
+  x0: number
+  y0: number
+  pxPerMm: number
+}
+
+export function stripToCard(s: Strip, u: number, v: number): Pt {
+  return [s.x0 + u / s.pxPerMm, s.y0 + v / s.pxPerMm]
+}
+
+export function cardToStrip(s: Strip, p: Pt): Pt {
+  return [(p[0] - s.x0) * s.pxPerMm, (p[1] - s.y0) * s.pxPerMm]
+}
+
+/** Photo px per card mm at a card point (geometric mean of the local scale), for choosing a resampling density. */
+export function localScale(h: Mat3, p: Pt): number {
+  const a = apply(h, p)
+  const b = apply(h, [p[0] + 1, p[1]])
+  const c = apply(h, [p[0], p[1] + 1])
+  return Math.sqrt(Math.abs((b[0] - a[0]) * (c[1] - a[1]) - (b[1] - a[1]) * (c[0] - a[0])))
+}
+
+export interface StripRequest {
+  x0: number
+  y0: number
+  x1: number
+  y1: number
+  pxPerMm: number
+}
+
+/** Resamples the photo onto a rectangle of the plane `hPlane` (card mm → undistorted px) describes. */
+export function rectify(cv: Cv, photo: GreyImage, hPlane: Mat3, d: Distortion, req: StripRequest): Strip {
+  const w = Math.max(2, Math.round((req.x1 - req.x0) * req.pxPerMm))
+  const h = Math.max(2, Math.round((req.y1 - req.y0) * req.pxPerMm))
+  const inside = new Uint8Array(w * h)
+  const out = withMats((track) => {
+    const src = track(new cv.Mat(photo.height, photo.width, cv.CV_8UC1))
+    src.data.set(photo.data)
+    const mapX = track(new cv.Mat(h, w, cv.CV_32FC1))
+    const mapY = track(new cv.Mat(h, w, cv.CV_32FC1))
+    const mx = mapX.data32F as Float32Array
+    const my = mapY.data32F as Float32Array
+    for (let v = 0; v < h; v++) {
+      for (let u = 0; u < w; u++) {
+        const q = distort(d, apply(hPlane, [req.x0 + u / req.pxPerMm, req.y0 + v / req.pxPerMm]))
+        const i = v * w + u
+        mx[i] = q[0]
+        my[i] = q[1]
+        inside[i] = q[0] >= 1 && q[1] >= 1 && q[0] <= photo.width - 2 && q[1] <= photo.height - 2 ? 1 : 0
+      }
+    }
+    const dst = track(new cv.Mat())
+    cv.remap(src, dst, mapX, mapY, cv.INTER_LINEAR, cv.BORDER_REPLICATE)
+    return new Uint8Array(dst.data)
+  })
+  return { img: { data: out, width: w, height: h }, inside, x0: req.x0, y0: req.y0, pxPerMm: req.pxPerMm }
+}
