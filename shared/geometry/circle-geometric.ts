@@ -1,0 +1,124 @@
+import type { AlgebraicCircle, Circle } from './circle-fit'
+import { prattAlgebraic, toCircle } from './circle-fit'
+import type { Vec2 } from './vec'
+import { solve } from './linalg'
+
+/** Result of the geometric (orthogonal-distance) circle fit; lengths in the input frame's units (mm). */
+export interface GeometricFit {
+  circle: Circle
+  /** The same circle in algebraic form, finite for a straight line (see AlgebraicCircle). */
+  algebraic: AlgebraicCircle
+  /** Unsigned curvature 1/r, exactly 0 for a line (1/mm). */
+  curvature: number
+  /** Root-mean-square orthogonal residual. */
+  rms: number
+  iterations: number
+}
+
+/** Parameters (A, D, θ) of the line-safe circle parametrisation, in coordinates centred and scaled for conditioning. */
+type Params = [number, number, number]
+
+function residuals(p: Params, q: readonly Vec2[], out: Float64Array): boolean {
+  const [a, d, theta] = p
+  const e = 1 + 4 * a * d
+  if (!(e > 0)) return false
+  const b = Math.sqrt(e) * Math.cos(theta)
+  const c = Math.sqrt(e) * Math.sin(theta)
+  for (let i = 0; i < q.length; i++) {
+    const [x, y] = q[i]
+    const P = a * (x * x + y * y) + b * x + c * y + d
+    const disc = 1 + 4 * a * P
+    if (disc < 0) return false
+    out[i] = (2 * P) / (1 + Math.sqrt(disc))
+  }
+  return true
+}
+
+const sumSq = (r: Float64Array): number => r.reduce((s, v) => s + v * v, 0)
+
+/** Central-difference Jacobian; the residual is smooth in (A, D, θ), so this is accurate to ~1e-9. */
+function jacobian(p: Params, q: readonly Vec2[]): Float64Array[] | null {
+  const h = 1e-6
+  const cols: Float64Array[] = []
+  const plus = new Float64Array(q.length)
+  const minus = new Float64Array(q.length)
+  for (let k = 0; k < 3; k++) {
+    const pp = [...p] as Params
+    const pm = [...p] as Params
+    pp[k] += h
+    pm[k] -= h
+    if (!residuals(pp, q, plus) || !residuals(pm, q, minus)) return null
+    cols.push(plus.map((v, i) => (v - minus[i]) / (2 * h)))
+  }
+  return cols
+}
+
+/** One damped normal-equation step (JᵀJ + λ·diag(JᵀJ)) δ = −Jᵀr. */
+function lmStep(jac: Float64Array[], r: Float64Array, lambda: number): number[] | null {
+  const h = [0, 1, 2].map((i) => [0, 1, 2].map((j) => jac[i].reduce((s, v, n) => s + v * jac[j][n], 0)))
+  const g = [0, 1, 2].map((i) => jac[i].reduce((s, v, n) => s + v * r[n], 0))
+  for (let i = 0; i < 3; i++) h[i][i] += lambda * h[i][i] + 1e-18
+  return solve(h, g.map((v) => -v))
+}
+
+/**
+ * Geometric circle fit: minimises the sum of squared orthogonal distances by Levenberg–Marquardt of our own, in
+ * the (A, D, θ) parametrisation (Chernov 2010, §4.8) so nearly straight arcs — a 2 m rocker over 40 mm — converge
+ * instead of running the centre off to infinity. Starts from Pratt's fit unless a start is given.
+ * Frame and units are those of the points (mm); needs at least 3 points.
+ */
+export function geometricFit(points: readonly Vec2[], start?: AlgebraicCircle): GeometricFit {
+  const init = start ?? prattAlgebraic(points)
+  const [mx, my] = init.mean
+  const s = Math.sqrt(points.reduce((acc, p) => acc + (p[0] - mx) ** 2 + (p[1] - my) ** 2, 0) / points.length) || 1
+  const q = points.map((p): Vec2 => [(p[0] - mx) / s, (p[1] - my) / s])
+  let p: Params = [init.a * s, init.d / s, Math.atan2(init.c, init.b)]
+  const r = new Float64Array(q.length)
+  const trial = new Float64Array(q.length)
+  if (!residuals(p, q, r)) throw new RangeError('geometric fit: invalid starting circle')
+  let cost = sumSq(r)
+  let lambda = 1e-3
+  let iterations = 0
+  for (; iterations < 200; iterations++) {
+    const jac = jacobian(p, q)
+    const delta = jac && lmStep(jac, r, lambda)
+    if (!delta) break
+    const next: Params = [p[0] + delta[0], p[1] + delta[1], p[2] + delta[2]]
+    const ok = residuals(next, q, trial)
+    const nextCost = ok ? sumSq(trial) : Infinity
+    if (nextCost < cost) {
+      const gain = cost - nextCost
+      p = next
+      r.set(trial)
+      cost = nextCost
+      lambda = Math.max(lambda * 0.3, 1e-12)
+      if (gain <= 1e-14 * cost || Math.hypot(...delta) < 1e-13) break
+    } else {
+      lambda *= 10
+      if (lambda > 1e12) break
+    }
+  }
+  return finish(p, s, init.mean, cost, points.length, iterations)
+}
+
+function finish(p: Params, s: number, mean: Vec2, cost: number, n: number, iterations: number): GeometricFit {
+  const [a, d, theta] = p
+  const e = Math.sqrt(1 + 4 * a * d)
+  const algebraic: AlgebraicCircle = { mean, a: a / s, b: e * Math.cos(theta), c: e * Math.sin(theta), d: d * s }
+  return {
+    circle: toCircle(algebraic),
+    algebraic,
+    curvature: 2 * Math.abs(algebraic.a),
+    rms: Math.sqrt(cost / n) * s,
+    iterations,
+  }
+}
+
+/**
+ * Signed curvature (1/mm) of a fitted arc in a y-up frame: positive when the centre lies above the points (an arc
+ * that bulges downward, as a rocker does toward the ice), negative when it bulges upward.
+ */
+export function signedCurvature(u: AlgebraicCircle): number {
+  // Centre y − mean y = −C / 2A, so the sign of the curvature is that of −A·C.
+  return u.c === 0 ? 2 * Math.abs(u.a) : -2 * u.a * Math.sign(u.c)
+}
