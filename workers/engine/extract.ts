@@ -1,0 +1,80 @@
+import { cardLayout, type CardLayout } from '../../shared/card/layout'
+import { getCv, withMats } from './opencv'
+import { decodeGrey, type GreyImage } from './image'
+import { DETECT_MAX_SIDE, reduce, toMat } from './markers'
+import { calibrate, type CardMarkers, type Calibration } from './calibrate'
+import { traceBlade, type BladeEdge } from './blade'
+import { distort } from './camera'
+import { fitHomography } from './homography'
+import { apply, type Mat3, type Pt } from './projective'
+import { EngineRefusal } from './errors'
+
+/** Nominal distance of the runner's near face in front of the card: half a 4 mm runner (DESIGN §3). */
+export const RUNNER_OFFSET_MM = 2
+/** Blur (Gaussian sigma of the edge) beyond which the edge cannot be located well enough, mm and photo px. */
+export const MAX_BLUR_MM = 0.45
+export const MAX_BLUR_PX = 6
+/** Card residual beyond which the card is bent, misprinted or misdetected, mm. */
+export const MAX_CARD_RESIDUAL_MM = 0.6
+
+export interface ExtractedEdge {
+  edge: BladeEdge
+  calibration: Calibration
+  layout: CardLayout
+  /** Card mm → photo px (distorted), fitted along the traced edge so an overlay drawn with it lands on the edge. */
+  overlayHomography: Mat3
+  /** Physical mm per printed card mm, from the check-bar reading (1 when none was entered). */
+  printScale: number
+  image: { width: number; height: number }
+}
+
+/** A card layout scaled to the physical size the person's check-bar reading implies. */
+function scaledMarkers(layout: CardLayout, printScale: number): CardMarkers {
+  return {
+    paper: layout.paper,
+    widthMm: layout.widthMm * printScale,
+    heightMm: layout.heightMm * printScale,
+    markers: layout.markers.map((m) => ({ id: m.id, cornersMm: m.cornersMm.map(([x, y]) => [x * printScale, y * printScale] as Pt) })),
+  }
+}
+
+function overlayHomography(edge: BladeEdge, cal: Calibration): Mat3 {
+  const step = Math.max(1, Math.floor(edge.edgeMm.length / 200))
+  const card = edge.edgeMm.filter((_, i) => i % step === 0)
+  const photo = card.map((p) => distort(cal.distortion, apply(edge.planeHomography, p)))
+  return fitHomography(card, photo)
+}
+
+async function locate(img: GreyImage, layouts: CardLayout[], printScale: number) {
+  const cv = await getCv()
+  return withMats((track) => {
+    const full = track(toMat(cv, img))
+    const { mat, scale } = reduce(cv, full, DETECT_MAX_SIDE)
+    track(mat)
+    full.delete()
+    const calibration = calibrate(cv, img, mat, scale, layouts.map((l) => scaledMarkers(l, printScale)))
+    if (calibration.residualMm > MAX_CARD_RESIDUAL_MM)
+      throw new EngineRefusal('CARD_NOT_FOUND', `card residual ${calibration.residualMm.toFixed(2)} mm`)
+    const layout = layouts.find((l) => l.paper === calibration.paper) as CardLayout
+    const z = layout.bladeZone
+    const zone = {
+      x0: z.xMm * printScale, x1: (z.xMm + z.widthMm) * printScale,
+      top: z.yMm * printScale, tableY: layout.heightMm * printScale,
+    }
+    const edge = traceBlade(cv, img, calibration, zone, RUNNER_OFFSET_MM)
+    return { calibration, layout, edge }
+  })
+}
+
+/** Decodes a photo, finds the card and traces the blade's bottom edge in card mm, or throws an EngineRefusal. */
+export async function extractEdge(bytes: Buffer, checkBarMm?: number | null): Promise<ExtractedEdge> {
+  const printScale = checkBarMm ? checkBarMm / 100 : 1
+  const img = await decodeGrey(bytes)
+  const { calibration, layout, edge } = await locate(img, [cardLayout('a4'), cardLayout('letter')], printScale)
+  if (edge.blurMm > MAX_BLUR_MM || edge.blurPx > MAX_BLUR_PX)
+    throw new EngineRefusal('TOO_BLURRY', `edge blur ${edge.blurMm.toFixed(2)} mm, ${edge.blurPx.toFixed(1)} px`)
+  return {
+    edge, calibration, layout, overlayHomography: overlayHomography(edge, calibration), printScale,
+    image: { width: img.width, height: img.height },
+  }
+}
