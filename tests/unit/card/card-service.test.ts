@@ -1,0 +1,94 @@
+import sharp from 'sharp'
+import { describe, expect, it } from 'vitest'
+import { getDocument } from 'pdfjs-dist/legacy/build/pdf.mjs'
+import { cardLayout, type Paper } from '../../../shared/card/layout'
+import { cardLayoutSchema } from '../../../shared/schemas/card'
+import { renderCard, renderCardRaster } from '../../../server/services/card.service'
+import { detectMarkers } from './opencv'
+
+const MM_PER_PT = 25.4 / 72
+const papers: Paper[] = ['a4', 'letter']
+
+async function pdfPages(buffer: Buffer) {
+  const doc = await getDocument({ data: new Uint8Array(buffer), useSystemFonts: false, verbosity: 0 }).promise
+  const pages = []
+  for (let n = 1; n <= doc.numPages; n++) {
+    const page = await doc.getPage(n)
+    const [x0, y0, x1, y1] = page.view
+    const content = await page.getTextContent()
+    const text = content.items.map((i) => ('str' in i ? i.str : '')).join(' ')
+    pages.push({ widthMm: (x1 - x0) * MM_PER_PT, heightMm: (y1 - y0) * MM_PER_PT, text })
+  }
+  await doc.destroy()
+  return pages
+}
+
+describe.each(papers)('card rendering %s', (paper) => {
+  const layout = cardLayout(paper)
+
+  it('PDF has one landscape page per sheet at the exact paper size', async () => {
+    const pages = await pdfPages(await renderCard(paper, 'pdf'))
+    expect(pages).toHaveLength(2)
+    // A4 = 297 × 210 mm landscape (ISO 216); Letter = 11 × 8.5 in = 279.4 × 215.9 mm (ASME Y14.1; 25.4 mm per inch).
+    const [w, h] = paper === 'a4' ? [297, 210] : [11 * 25.4, 8.5 * 25.4]
+    for (const page of pages) {
+      expect(page.widthMm).toBeCloseTo(w, 1)
+      expect(page.heightMm).toBeCloseTo(h, 1)
+    }
+    expect(pages[0].text).toContain(layout.cardId)
+    expect(pages[0].text).toContain('100 mm check bar')
+    expect(pages[1].text).toContain('Hold the boot, not the blade.')
+    expect(pages[1].text).toContain('Keep the guards on the toe picks.')
+    expect(pages[1].text).toMatch(/fingers off the edge/)
+  }, 30_000)
+
+  it('PNG has the pixel size of the card at the requested dpi', async () => {
+    const dpi = 150
+    const meta = await sharp(await renderCard(paper, 'png', { dpi })).metadata()
+    expect(meta.format).toBe('png')
+    expect(meta.width).toBe(Math.round((layout.widthMm / 25.4) * dpi))
+    expect(meta.height).toBe(Math.round((layout.heightMm / 25.4) * dpi))
+    expect(meta.density).toBe(dpi)
+  })
+
+  it('PNG markers are found by opencv at the layout positions', async () => {
+    const pxPerMm = 6
+    const raster = await renderCardRaster(paper, pxPerMm)
+    const found = await detectMarkers(raster.data, raster.width, raster.height)
+    expect([...found.keys()].sort((a, b) => a - b)).toEqual(layout.markers.map((m) => m.id).sort((a, b) => a - b))
+    for (const marker of layout.markers) {
+      const corners = found.get(marker.id)!
+      marker.cornersMm.forEach(([x, y], k) => {
+        // opencv reports corners on pixel centres of the outermost dark pixels: within a pixel of the mm position.
+        expect(Math.abs(corners[k][0] - x * pxPerMm)).toBeLessThan(1.01)
+        expect(Math.abs(corners[k][1] - y * pxPerMm)).toBeLessThan(1.01)
+      })
+    }
+  })
+
+  it('JSON is the layout and passes the schema', async () => {
+    const parsed = cardLayoutSchema.parse(JSON.parse((await renderCard(paper, 'json')).toString('utf8')))
+    expect(parsed).toEqual(layout)
+  })
+
+  it('leaves the blade zone blank so nothing printed competes with the runner', async () => {
+    const raster = await renderCardRaster(paper, 4)
+    const z = layout.bladeZone
+    let dark = 0
+    for (let y = Math.ceil(z.yMm * 4) + 1; y < raster.height; y++) {
+      for (let x = Math.ceil(z.xMm * 4) + 1; x < Math.floor((z.xMm + z.widthMm) * 4) - 1; x++) {
+        // The cut edge of sheet 2 is the one allowed mark: its dashed line straddles the join.
+        if (Math.abs(x / 4 - layout.joinXMm) < 1) continue
+        if (raster.data[y * raster.width + x] < 200) dark++
+      }
+    }
+    expect(dark).toBe(0)
+  })
+})
+
+describe('renderCard arguments', () => {
+  it('refuses a dpi out of range', async () => {
+    await expect(renderCard('a4', 'png', { dpi: 5 })).rejects.toThrow(/dpi/)
+    await expect(renderCard('a4', 'png', { dpi: Number.NaN })).rejects.toThrow(/dpi/)
+  })
+})
