@@ -58,3 +58,21 @@ export function peakIndex(values: ArrayLike<number>, sign: 1 | -1): { at: number
   const offset = denom < 0 ? (0.5 * (a - c)) / denom : 0
   return { at: best + offset, value: sign * (bestValue - 0.25 * (a - c) * offset) }
 }
+
+/**
+ * Like {@link peakIndex}, but fits the parabola to the logarithm of the three samples when all are positive: exact
+ * for the Gaussian gradient profile of a blurred step, where a plain parabola is biased by up to 1/6 px.
+ */
+export function gaussianPeak(values: ArrayLike<number>, sign: 1 | -1): { at: number; value: number } | null {
+  const peak = peakIndex(values, sign)
+  if (!peak) return null
+  const i = Math.round(peak.at)
+  const [a, b, c] = [sign * values[i - 1], sign * values[i], sign * values[i + 1]]
+  if (!(a > 0 && b > 0 && c > 0)) return peak
+  const [la, lb, lc] = [Math.log(a), Math.log(b), Math.log(c)]
+  const denom = la - 2 * lb + lc
+  if (!(denom < 0)) return peak
+  const offset = (0.5 * (la - lc)) / denom
+  if (Math.abs(offset) > 1) return peak
+  return { at: i + offset, value: sign * Math.exp(lb - 0.25 * (la - lc) * offset) }
+}

@@ -1,4 +1,4 @@
-import { peakIndex, sample, type GreyImage } from './image'
+import { gaussianPeak, sample, type GreyImage } from './image'
 import type { DetectedMarker } from './markers'
 
 type Pt = [number, number]
@@ -64,7 +64,7 @@ function sideEdgePoints(img: GreyImage, a: Pt, b: Pt, centre: Pt, window: number
     ny = -ny
   }
   const count = Math.max(6, Math.min(40, Math.floor(len / 3)))
-  const step = 0.5
+  const step = 1
   const n = Math.round((2 * window) / step) + 1
   const out: Pt[] = []
   const profile = new Float64Array(n)
@@ -79,7 +79,7 @@ function sideEdgePoints(img: GreyImage, a: Pt, b: Pt, centre: Pt, window: number
       profile[i] = sample(img, px + nx * s, py + ny * s)
     }
     for (let i = 1; i < n - 1; i++) grad[i - 1] = profile[i + 1] - profile[i - 1]
-    const peak = peakIndex(grad, 1)
+    const peak = gaussianPeak(grad, 1)
     if (!peak || !(peak.value > 8)) continue
     const s = -window + (peak.at + 1) * step
     out.push([px + nx * s, py + ny * s])

@@ -1,4 +1,4 @@
-import { peakIndex, sample } from './image'
+import { gaussianPeak, sample } from './image'
 import type { Strip } from './rectify'
 import type { Silhouette } from './segment'
 
@@ -67,7 +67,8 @@ export interface EdgeSample {
  * a parabola to the gradient peak of the steel-to-card step. Points with no clear peak in the window are dropped.
  */
 export function refineAlongNormals(strip: Strip, coarse: Pt[], sil: Silhouette, windowPx: number): EdgeSample[] {
-  const step = 0.25
+  // One-pixel steps: finer steps through a bilinear image only resolve its piecewise-linear facets.
+  const step = 1
   const n = Math.round((2 * windowPx) / step) + 1
   const profile = new Float64Array(n)
   const grad = new Float64Array(n - 2)
@@ -88,7 +89,7 @@ export function refineAlongNormals(strip: Strip, coarse: Pt[], sil: Silhouette, 
       profile[k] = sample(strip.img, coarse[i][0] + nx * s, coarse[i][1] + ny * s)
     }
     for (let k = 1; k < n - 1; k++) grad[k - 1] = (profile[k + 1] - profile[k - 1]) / (2 * step)
-    const peak = peakIndex(grad, sign)
+    const peak = gaussianPeak(grad, sign)
     if (!peak || !Number.isFinite(peak.value) || sign * peak.value < 0.15 * contrast / windowPx) continue
     const s = -windowPx + (peak.at + 1) * step
     const strength = Math.abs(peak.value)

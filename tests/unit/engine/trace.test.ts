@@ -1,0 +1,60 @@
+import { describe, expect, it } from 'vitest'
+import { getCv } from '../../../workers/engine/opencv'
+import { segmentBlade } from '../../../workers/engine/segment'
+import { lowerPath, refineAlongNormals, smoothResample } from '../../../workers/engine/trace'
+import type { Strip } from '../../../workers/engine/rectify'
+
+const W = 1600
+const H = 400
+const R = 6000
+const CX = 800
+const CY = 360 - R
+
+/** Abramowitz & Stegun 7.1.26 approximation of erf (|error| < 1.5e-7). */
+function erf(x: number): number {
+  const t = 1 / (1 + 0.3275911 * Math.abs(x))
+  const y = 1 - (((((1.061405429 * t - 1.453152027) * t + 1.421413741) * t - 0.284496736) * t + 0.254829592) * t) * Math.exp(-x * x)
+  return x >= 0 ? y : -y
+}
+
+/**
+ * A blade-like silhouette whose lower edge is a circle of radius R px, rendered analytically as a Gaussian-blurred
+ * step (sigma 1.3 px) so the true edge is known exactly; the ends are cut off by card-coloured columns.
+ */
+async function drawnStrip(steel: number, card: number): Promise<Strip> {
+  const data = new Uint8Array(W * H)
+  const sigma = 1.3
+  for (let y = 0; y < H; y++) {
+    for (let x = 0; x < W; x++) {
+      const d = Math.hypot(x - CX, y - CY) - R
+      const inside = x > 150 && x < 1450 ? 0.5 * (1 - erf(d / (sigma * Math.SQRT2))) : 0
+      const noise = ((x * 7919 + y * 104729) % 13) / 13 - 0.5
+      data[y * W + x] = Math.round(card + (steel - card) * inside + 2 * noise)
+    }
+  }
+  return { img: { data, width: W, height: H }, inside: new Uint8Array(W * H).fill(1), x0: 0, y0: 0, pxPerMm: 10 }
+}
+
+describe('edge trace', () => {
+  for (const [name, steel, card] of [['dark steel', 90, 210], ['light steel', 245, 150]] as const) {
+    it(`locates a circular bottom edge to a few hundredths of a pixel (${name})`, async () => {
+      const cv = await getCv()
+      const strip = await drawnStrip(steel, card)
+      const sil = segmentBlade(cv, strip, 380)
+      expect(sil).not.toBeNull()
+      expect(sil!.darker).toBe(steel < card)
+      const path = lowerPath(sil!.outline)
+      const coarse = smoothResample(path, 5, 2)
+      const samples = refineAlongNormals(strip, coarse, sil!, 6)
+      // Only the arc, away from the drawn vertical ends: distance to the true circle of radius R (pixel centres).
+      const errors = samples
+        .filter((s) => s.p[0] > 170 && s.p[0] < 1430)
+        .map((s) => Math.hypot(s.p[0] - CX, s.p[1] - CY) - R)
+      expect(errors.length).toBeGreaterThan(500)
+      const mean = errors.reduce((a, b) => a + b, 0) / errors.length
+      const rms = Math.sqrt(errors.reduce((a, b) => a + b * b, 0) / errors.length)
+      expect(Math.abs(mean)).toBeLessThan(0.03)
+      expect(rms).toBeLessThan(0.06)
+    })
+  }
+})
