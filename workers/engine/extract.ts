@@ -38,9 +38,17 @@ function scaledMarkers(layout: CardLayout, printScale: number): CardMarkers {
   }
 }
 
+/**
+ * Card mm → photo px for drawing the overlay: a homography fitted, by least squares, to the runner-plane mapping with
+ * lens distortion over a grid around the traced edge, so the stored 3×3 matrix lands on the edge in the photo.
+ */
 function overlayHomography(edge: BladeEdge, cal: Calibration): Mat3 {
-  const step = Math.max(1, Math.floor(edge.edgeMm.length / 200))
-  const card = edge.edgeMm.filter((_, i) => i % step === 0)
+  const xs = edge.edgeMm.map((p) => p[0])
+  const ys = edge.edgeMm.map((p) => p[1])
+  const [x0, x1] = [Math.min(...xs), Math.max(...xs)]
+  const [y0, y1] = [Math.min(...ys) - 10, Math.max(...ys) + 5]
+  const card: Pt[] = []
+  for (let i = 0; i <= 12; i++) for (let j = 0; j <= 4; j++) card.push([x0 + ((x1 - x0) * i) / 12, y0 + ((y1 - y0) * j) / 4])
   const photo = card.map((p) => distort(cal.distortion, apply(edge.planeHomography, p)))
   return fitHomography(card, photo)
 }

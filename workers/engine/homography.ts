@@ -1,7 +1,7 @@
+import { fitHomography as fitShared } from '../../shared/geometry/homography'
 import type { Mat3, Pt } from './projective'
-import { fitHomographyDlt } from './dlt'
 
-/** Card mm → photo px homography from corresponding points (one place to swap in the shared geometry's fit). */
+/** Card mm → photo px homography from corresponding points (the shared normalised DLT), as a flat row-major array. */
 export function fitHomography(card: Pt[], photo: Pt[]): Mat3 {
-  return fitHomographyDlt(card, photo)
+  return fitShared(card, photo).flat()
 }
