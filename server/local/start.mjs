@@ -1,0 +1,3 @@
+import { bootstrap } from './bootstrap.mjs'
+
+bootstrap('start', process.argv.slice(2))

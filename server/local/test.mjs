@@ -1,0 +1,3 @@
+import { bootstrap } from './bootstrap.mjs'
+
+bootstrap('test', process.argv.slice(2))
