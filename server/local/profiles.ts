@@ -15,10 +15,24 @@ export interface Profile {
 
 export const projectRoot = resolve(import.meta.dirname, '../..')
 
-export function profileFor(mode: Mode): Profile {
-  return mode === 'start'
-    ? { mode, dataDir: resolve(projectRoot, '.data/dev'), pgPort: 55432, s3Port: 9410, smtpPort: 2587, appPort: 5180, database: 'rockerbook' }
-    : { mode, dataDir: resolve(projectRoot, '.data/test'), pgPort: 55442, s3Port: 9420, smtpPort: 2597, appPort: 5190, database: 'rockerbook_e2e' }
+/**
+ * `TEST_SLOT=n` gives a test run its own ports and data folder, so several test runs can share one machine
+ * (developers running a single file while the full suite runs elsewhere).
+ */
+export function profileFor(mode: Mode, slot = Number(process.env.TEST_SLOT ?? 0)): Profile {
+  if (mode === 'start') {
+    return { mode, dataDir: resolve(projectRoot, '.data/dev'), pgPort: 55432, s3Port: 9410, smtpPort: 2587, appPort: 5180, database: 'rockerbook' }
+  }
+  const n = Number.isInteger(slot) && slot > 0 ? slot : 0
+  return {
+    mode,
+    dataDir: resolve(projectRoot, n ? `.data/test-${n}` : '.data/test'),
+    pgPort: 55442 + n * 10,
+    s3Port: 9420 + n * 10,
+    smtpPort: 2597 + n * 10,
+    appPort: 5190 + n * 10,
+    database: 'rockerbook_e2e',
+  }
 }
 
 /** The environment the server, the worker and the tests get, pointing at this profile's embedded services. */
