@@ -1,0 +1,197 @@
+import type { AnalysisResult, AnalysisWarning } from '../schemas/analysis'
+import { contactLength, contactLengthSigma } from './contact'
+import { findFlatSpots, findKinks } from './defects'
+import type { BladeFrame, ToeSide } from './frames'
+import { bladeToCard, cardToBlade } from './frames'
+import type { EdgeMark } from './heel'
+import { directionAngles, extrapolateStationLift, findHeelEnd, findRockerStart, rockerEndIndex } from './heel'
+import { MM_PER_INCH } from './hollow'
+import type { Support } from './landmarks'
+import { detectSupport, orderedWork, overrideBasePick } from './landmarks'
+import { ProfileError } from './profile-error'
+import type { WindowFit } from './radius-profile'
+import { PROFILE_STEP_MM, STRAIGHT_CURVATURE, radiusProfile, sectionRadii } from './radius-profile'
+import { measureUncertainty } from './profile-uncertainty'
+import type { Vec2 } from './vec'
+import { median } from './vec'
+
+export type Discipline = 'freestyle' | 'dance' | 'pairs' | 'synchro'
+
+/** What the image engine hands to geometry. All lengths in mm. */
+export interface ProfileInput {
+  /** Bottom edge from the toe-pick tips to the heel end, card-frame mm (x right, y down), densely sampled. */
+  edgeMm: Vec2[]
+  /** Which end of the edge, in card x, is the toe. */
+  toe: ToeSide
+  /** Nominal blade length, inches. */
+  sizeIn: number
+  discipline: Discipline
+  /** Per-point noise of the edge (1σ, mm). */
+  edgeSigmaMm: number
+  /** Card calibration residual (1σ, mm). */
+  calibrationSigmaMm: number
+  overrides?: { basePickAlongMm?: number; heelEndAlongMm?: number }
+}
+
+/** Heel station: nominal length − 45 mm behind B (our convention, DESIGN §4.4). */
+export const HEEL_STATION_OFFSET_MM = 45
+/** Measured vs nominal length mismatch that is flagged (DESIGN §3). */
+export const LENGTH_TOLERANCE = 0.03
+
+/** Every metric geometry owns, in the shapes of the analysis schema, plus the frame for drawing and comparing. */
+export type ProfileMeasurement = Pick<
+  AnalysisResult,
+  | 'touchPointMm' | 'heelLiftMm' | 'heelLiftStationMm' | 'heelLiftExtrapolated' | 'contactLengthMm' | 'bladeLengthMm'
+  | 'uncertainty' | 'radiusProfile' | 'sectionRadii' | 'flatSpots' | 'kinks' | 'landmarks' | 'warnings' | 'overrides'
+> & {
+  frame: BladeFrame
+  /** Edge in the blade frame (x along L from B, y up), ordered toe → heel. */
+  bladeMm: Vec2[]
+  rockerStartAlongMm: number
+  rockerEndAlongMm: number
+  /** Median RMS residual of the radius-profile fits (mm): the edge's noise as measured. */
+  edgeResidualMm: number
+}
+
+interface Located {
+  support: Support
+  blade: Vec2[]
+  card: Vec2[]
+  touchIndex: number
+  heel: EdgeMark
+  angles: Float64Array
+}
+
+function locate(input: ProfileInput): Located {
+  if (input.edgeMm.length < 100)
+    throw new ProfileError('BLADE_NOT_FOUND', 'Too little of the blade\u2019s bottom edge was traced to measure it.')
+  const { work, card } = orderedWork(input.edgeMm, input.toe)
+  let support = detectSupport(work, input.toe)
+  let blade = card.map((p) => cardToBlade(support.frame, p))
+  const o = input.overrides
+  if (o?.basePickAlongMm !== undefined) {
+    support = overrideBasePick(work, input.toe, support, blade, o.basePickAlongMm)
+    blade = card.map((p) => cardToBlade(support.frame, p))
+  }
+  const touchIndex = Math.max(blade.findIndex((p, i) => i > support.basePickIndex && p[0] >= support.touchPointMm), 1)
+  const angles = directionAngles(blade)
+  const heel = o?.heelEndAlongMm !== undefined ? nearestBehind(blade, touchIndex, o.heelEndAlongMm) : findHeelEnd(blade, angles, touchIndex)
+  if (!heel) throw new ProfileError('BLADE_CUT_OFF', 'The heel end is not in the traced edge.')
+  return { support, blade, card, touchIndex, heel, angles }
+}
+
+/** The edge point behind T nearest to alongMm: where a person put E. */
+function nearestBehind(blade: readonly Vec2[], from: number, alongMm: number): EdgeMark {
+  let best = from
+  for (let i = from; i < blade.length; i++) if (Math.abs(blade[i][0] - alongMm) < Math.abs(blade[best][0] - alongMm)) best = i
+  return { point: blade[best], index: best }
+}
+
+/**
+ * Measures a traced blade edge (DESIGN §4.3–4.7): support line, base pick, touch point, heel end and lift, heel
+ * station lift, contact length, radius profile, sections, flat spots, kinks, landmarks and their ± — all in the
+ * blade frame (x along L from B toward the heel, y up, mm). Throws ProfileError when the edge cannot support them.
+ */
+export function measureProfile(input: ProfileInput): ProfileMeasurement {
+  const loc = locate(input)
+  const { blade, angles, heel, touchIndex, support } = loc
+  const start = findRockerStart(blade, angles, touchIndex)
+  const startIndex = firstStraight(angles, start ? start.index : support.basePickIndex + 1, touchIndex)
+  const endIndex = rockerEndIndex(angles, heel.index, touchIndex)
+  const rocker = blade.slice(startIndex, endIndex + 1)
+  const [startX, endX] = [blade[startIndex][0], blade[endIndex][0]]
+  const profile = radiusProfile(rocker, startX, endX)
+  const edgeResidualMm = profile.length ? median(profile.map((w) => w.rmsMm)) : input.edgeSigmaMm
+  const sigma = Math.max(input.edgeSigmaMm, edgeResidualMm)
+  const station = stationLift(input, blade, heel, endX)
+  const radiusT = touchRadius(support, profile)
+  const unc = measureUncertainty({
+    noise: { edgeSigmaMm: sigma, calibrationSigmaMm: input.calibrationSigmaMm },
+    support, profile, heel, angles, blade, station, radiusT,
+  })
+  const warnings = lengthWarnings(input, blade)
+  if (!Number.isFinite(radiusT)) warnings.push({ code: 'STRAIGHT_AT_TOUCH', message: 'The rocker is straight at the touch point; contact length is a lower bound.' })
+  if (station.unreachable) warnings.push({ code: 'HEEL_STATION_UNREACHABLE', message: 'The heel station lies beyond the rocker\u2019s fitted circle.' })
+  const rT = Number.isFinite(radiusT) ? radiusT : 1 / STRAIGHT_CURVATURE
+  const mark = (alongMm: number, at: Vec2) => ({ alongMm, cardMm: bladeToCard(support.frame, at) as [number, number] })
+  return {
+    touchPointMm: support.touchPointMm,
+    heelLiftMm: heel.point[1],
+    heelLiftStationMm: station.liftMm,
+    heelLiftExtrapolated: station.liftMm !== null,
+    contactLengthMm: contactLength(rT),
+    bladeLengthMm: Math.max(...blade.map((p) => p[0])) - Math.min(...blade.map((p) => p[0])),
+    uncertainty: {
+      touchPointMm: unc.touchPointMm,
+      heelLiftMm: unc.heelLiftMm,
+      heelLiftStationMm: unc.heelLiftStationMm,
+      contactLengthMm: contactLengthSigma(rT, unc.radiusRelativeAtTouch),
+      radiusRelative: unc.radiusRelative,
+    },
+    radiusProfile: profile.map(({ alongMm, curvaturePerMm, radiusMm }) => ({ alongMm, curvaturePerMm, radiusMm })),
+    sectionRadii: sectionRadii(rocker, startX, support.touchPointMm, endX),
+    flatSpots: findFlatSpots(rocker, startX, endX),
+    kinks: findKinks(rocker, startX, endX, curvatureLookup(profile, radiusT), sigma),
+    landmarks: {
+      basePick: mark(0, [0, 0]),
+      touchPoint: mark(support.touchPointMm, [support.touchPointMm, 0]),
+      heelEnd: mark(heel.point[0], heel.point),
+    },
+    warnings,
+    overrides: input.overrides && Object.keys(input.overrides).length ? { ...input.overrides } : null,
+    frame: support.frame,
+    bladeMm: blade,
+    rockerStartAlongMm: startX,
+    rockerEndAlongMm: endX,
+    edgeResidualMm,
+  }
+}
+
+/** First point from `from` toward T whose direction is within 10° of L: where the rocker proper begins. */
+function firstStraight(angles: Float64Array, from: number, touchIndex: number): number {
+  for (let i = from; i < touchIndex; i++) if (Math.abs(angles[i]) <= (10 * Math.PI) / 180) return i
+  return from
+}
+
+interface StationResult {
+  liftMm: number | null
+  unreachable: boolean
+  xs: number[]
+  stationX: number
+}
+
+function stationLift(input: ProfileInput, blade: readonly Vec2[], heel: EdgeMark, rockerEndX: number): StationResult {
+  const stationX = input.sizeIn * MM_PER_INCH - HEEL_STATION_OFFSET_MM
+  if (heel.point[0] >= stationX) return { liftMm: null, unreachable: false, xs: [], stationX }
+  const rocker = blade.filter((p, i) => i < heel.index && p[0] > 0)
+  const ex = extrapolateStationLift(rocker, rockerEndX, stationX)
+  const xs = rocker.filter((p) => p[0] >= ex.fromAlongMm && p[0] <= ex.toAlongMm).map((p) => p[0])
+  return { liftMm: ex.liftMm, unreachable: ex.liftMm === null, xs, stationX }
+}
+
+/** Radius at T: the circle fitted for the touch point, else the nearest profile window. Infinity when straight. */
+function touchRadius(support: Support, profile: readonly WindowFit[]): number {
+  if (support.touchFit && support.touchFit.curvature >= STRAIGHT_CURVATURE) return support.touchFit.circle.r
+  const near = [...profile].sort((a, b) => Math.abs(a.alongMm - support.touchPointMm) - Math.abs(b.alongMm - support.touchPointMm))[0]
+  return near?.radiusMm ?? Infinity
+}
+
+/** Trend curvature at x for the kink scan: the nearest radius-profile window (or the circle at T). */
+function curvatureLookup(profile: readonly WindowFit[], radiusT: number): (x: number) => number {
+  if (!profile.length) return () => (Number.isFinite(radiusT) ? 1 / radiusT : 0)
+  return (x) => {
+    const i = Math.min(Math.max(Math.round((x - profile[0].alongMm) / PROFILE_STEP_MM), 0), profile.length - 1)
+    return profile[i].curvaturePerMm
+  }
+}
+
+function lengthWarnings(input: ProfileInput, blade: readonly Vec2[]): AnalysisWarning[] {
+  const measured = Math.max(...blade.map((p) => p[0])) - Math.min(...blade.map((p) => p[0]))
+  const ratio = measured / (input.sizeIn * MM_PER_INCH)
+  // Dance blades are shorter than their boot size by design, so only an over-length reads as a scale error there.
+  const off = input.discipline === 'dance' ? ratio > 1 + LENGTH_TOLERANCE : Math.abs(ratio - 1) > LENGTH_TOLERANCE
+  if (!off) return []
+  const pct = Math.round((ratio - 1) * 100)
+  return [{ code: 'LENGTH_MISMATCH', message: `The blade measures ${Math.abs(pct)} % ${pct > 0 ? 'longer' : 'shorter'} than its nominal size; check the card\u2019s print scale.` }]
+}
+

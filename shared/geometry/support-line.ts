@@ -1,0 +1,94 @@
+import type { Circle } from './circle-fit'
+import type { GeometricFit } from './circle-geometric'
+import { geometricFit } from './circle-geometric'
+import { lowerHull } from './hull'
+import { ProfileError } from './profile-error'
+import type { Vec2 } from './vec'
+import { add, dist, dot, norm, rotate, scale, sub, unit } from './vec'
+
+/** Shortest pick gap we accept as the B–T bridge; shorter means the picks are missing from the edge (mm). */
+const MIN_BRIDGE_MM = 15
+
+/** Hull vertices of B and of the provisional touch point, as indices into the work-frame edge. */
+export interface SupportHull {
+  basePickIndex: number
+  touchIndex: number
+}
+
+/**
+ * Finds the support line L on an edge in a y-up frame with the toe toward −x (mm): the longest edge of the lower
+ * convex hull in front of the rocker's lowest point. Its front end is the base pick tip B, its rear end the
+ * provisional touch point. Throws BLADE_CUT_OFF when no such bridge exists (no toe picks in the edge).
+ */
+export function findSupportHull(work: readonly Vec2[]): SupportHull {
+  let lowest = 0
+  for (let i = 1; i < work.length; i++) if (work[i][1] < work[lowest][1]) lowest = i
+  const hull = lowerHull(work)
+  let best: SupportHull | null = null
+  let bestLength = 0
+  for (let k = 0; k + 1 < hull.length; k++) {
+    const a = hull[k]
+    const b = hull[k + 1]
+    if (work[b][0] > work[lowest][0]) break
+    const length = dist(work[a], work[b])
+    if (length > bestLength) {
+      bestLength = length
+      best = { basePickIndex: a, touchIndex: b }
+    }
+  }
+  if (!best || bestLength < MIN_BRIDGE_MM)
+    throw new ProfileError('BLADE_CUT_OFF', 'The toe picks are not in the traced edge, so the base pick cannot be found.')
+  return best
+}
+
+/**
+ * Tangent point on a circle of the line from an outside point b that passes below the circle (the circle lies on
+ * the left of the direction b → tangent point, i.e. above it in a y-up frame with the heel toward +x).
+ * Null when b is inside the circle.
+ */
+export function lowerTangentPoint(b: Vec2, circle: Circle): Vec2 | null {
+  const toCentre: Vec2 = [circle.cx - b[0], circle.cy - b[1]]
+  const d = norm(toCentre)
+  if (!(d > circle.r) || !Number.isFinite(circle.r)) return null
+  const dir = rotate(unit(toCentre), -Math.asin(circle.r / d))
+  return add(b, scale(dir, Math.sqrt(d * d - circle.r * circle.r)))
+}
+
+/** Result of refining T: the tangent point and the local rocker circle it was found on (work frame, mm). */
+export interface TouchRefinement {
+  touch: Vec2
+  fit: GeometricFit | null
+  windowCount: number
+}
+
+/** Half-width of the rocker window fitted around T (mm); the same 40 mm as a radius-profile window. */
+export const TOUCH_HALF_WINDOW_MM = 20
+
+/**
+ * Refines T: fits a geometric circle to the rocker within ±20 mm of the provisional T (only points within 1.5 mm
+ * of the current L, which excludes the pick teeth) and takes the tangent point of the line from B to that circle.
+ * Done twice so the window ends up centred on the refined T. Falls back to the hull vertex on a straight rocker.
+ */
+export function refineTouchPoint(work: readonly Vec2[], fromIndex: number, b: Vec2, provisional: Vec2): TouchRefinement {
+  let touch = provisional
+  let result: TouchRefinement = { touch, fit: null, windowCount: 0 }
+  for (let round = 0; round < 2; round++) {
+    const u = unit(sub(touch, b))
+    const up = rotate(u, Math.PI / 2)
+    const at = dist(touch, b)
+    const lo = Math.max(at - TOUCH_HALF_WINDOW_MM, 0.5 * at)
+    const window: Vec2[] = []
+    for (let i = fromIndex; i < work.length; i++) {
+      const v = sub(work[i], b)
+      const along = dot(v, u)
+      if (along >= lo && along <= at + TOUCH_HALF_WINDOW_MM && dot(v, up) < 1.5) window.push(work[i])
+    }
+    if (window.length < 10) return result
+    const fit = geometricFit(window)
+    const tangent = fit.circle.cy > touch[1] ? lowerTangentPoint(b, fit.circle) : null
+    if (!tangent) return { touch, fit, windowCount: window.length }
+    touch = tangent
+    result = { touch, fit, windowCount: window.length }
+  }
+  return result
+}
