@@ -12,13 +12,17 @@ const server = createApp(ctx).listen(config.PORT, config.HOST)
 await once(server, 'listening')
 ctx.logger.info({ url: config.PUBLIC_URL }, 'server listening')
 
+let stopping = false
 async function shutdown(signal: string): Promise<void> {
+  // Ctrl-C reaches this process directly and again through the launcher: stop once.
+  if (stopping) return
+  stopping = true
   ctx.logger.info({ signal }, 'server stopping')
   server.close()
   server.closeAllConnections()
   await closeContext(ctx)
   process.exit(0)
 }
-process.once('SIGINT', () => void shutdown('SIGINT'))
-process.once('SIGTERM', () => void shutdown('SIGTERM'))
+process.on('SIGINT', () => void shutdown('SIGINT'))
+process.on('SIGTERM', () => void shutdown('SIGTERM'))
 watchParent(() => void shutdown('parent exited'))

@@ -26,11 +26,15 @@ async function register(job: JobDefinition<any>): Promise<void> {
 for (const job of jobs) await register(job)
 ctx.logger.info({ jobs: jobs.map((j) => j.name) }, 'worker ready')
 
+let stopping = false
 async function shutdown(signal: string): Promise<void> {
+  // Ctrl-C reaches this process directly and again through the launcher: stop once.
+  if (stopping) return
+  stopping = true
   ctx.logger.info({ signal }, 'worker stopping')
   await closeContext(ctx)
   process.exit(0)
 }
-process.once('SIGINT', () => void shutdown('SIGINT'))
-process.once('SIGTERM', () => void shutdown('SIGTERM'))
+process.on('SIGINT', () => void shutdown('SIGINT'))
+process.on('SIGTERM', () => void shutdown('SIGTERM'))
 watchParent(() => void shutdown('parent exited'))

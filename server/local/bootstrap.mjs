@@ -27,11 +27,12 @@ function ensurePackages() {
 
 /** Installs what is missing, then hands over to the TypeScript orchestrator for `mode` ('start' or 'test'). */
 export function bootstrap(mode, extraArgs = []) {
+  const startedAt = Date.now()
   ensurePackages()
   const child = spawn(process.execPath, ['--import', 'tsx', join(root, 'server/local/run.ts'), mode, ...extraArgs], {
     cwd: root,
     stdio: 'inherit',
-    env: { ...process.env, ROCKERBOOK_EXIT_WITH_PARENT: '1' },
+    env: { ...process.env, ROCKERBOOK_EXIT_WITH_PARENT: '1', ROCKERBOOK_STARTED_AT: String(startedAt) },
   })
   // If whatever started us dies without passing on a signal, stop the orchestrator rather than orphan it.
   const parent = process.ppid

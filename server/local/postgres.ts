@@ -58,7 +58,14 @@ export function startPostgres(bin: string, dataDir: string, port: number, server
   // A cluster left running by a crashed earlier run is stopped first, so its settings are ours.
   spawnSync(isRoot ? 'runuser' : join(bin, 'pg_ctl'), isRoot ? ['-u', 'postgres', '--', join(bin, 'pg_ctl'), '-D', pgData, '-m', 'fast', '-w', 'stop'] : ['-D', pgData, '-m', 'fast', '-w', 'stop'], { stdio: 'ignore' })
   asDbUser(bin, 'pg_ctl', ['-D', pgData, '-l', join(pgData, 'server.log'), '-w', '-o', `-p ${port} -h 127.0.0.1 -k ${pgData} ${serverOptions}`, 'start'])
-  return () => asDbUser(bin, 'pg_ctl', ['-D', pgData, '-m', 'fast', '-w', 'stop'])
+  return () => {
+    // Ctrl-C may already have reached the postmaster and shut it down; that is fine.
+    try {
+      asDbUser(bin, 'pg_ctl', ['-D', pgData, '-m', 'fast', '-w', 'stop'])
+    } catch {
+      /* already stopped */
+    }
+  }
 }
 
 /** Creates `name` if missing, optionally as a copy of a template database. */
