@@ -6,7 +6,7 @@ export const CONTACT_GAP_MM = 0.002
 
 /**
  * Contact length (mm): the chord over which a circle of radius radiusMm stays within gapMm of its tangent line,
- * c = 2√(2·R·δ) — the small-gap form of the circular-segment chord 2√(2Rδ − δ²), which differs by under 1 nm here.
+ * c = 2√(2·R·δ) — the small-gap form of the circular-segment chord 2√(2Rδ − δ²), which differs by under 0.01 µm here.
  */
 export function contactLength(radiusMm: number, gapMm = CONTACT_GAP_MM): number {
   if (!(radiusMm > 0)) throw new RangeError('contact length needs a positive radius')

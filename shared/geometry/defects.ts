@@ -63,11 +63,13 @@ export interface Kink {
 /** A kink changes direction by more than 1° within 2 mm, beyond what the fitted rocker curvature explains. */
 export const KINK_DEG = 1
 export const KINK_SPAN_MM = 2
+export const KINK_NOISE_SIGMAS = 5
 
 /**
  * Scans the rocker every 0.25 mm: the direction of a line fitted over the 2 mm before each station is compared
  * with the 2 mm after it; the change expected from the local curvature (trend) is removed. A station counts when
- * the excess is over 1° and over 3σ of the line-fit noise (edgeSigmaMm), so pixel noise does not read as kinks.
+ * the excess is over 1° and over 5σ of the line-fit noise (edgeSigmaMm): a blade has some hundred independent 2 mm
+ * stretches, and 5σ keeps pixel noise from reading as a kink on any of them.
  * Each run of counting stations reports its largest excess.
  */
 export function findKinks(
@@ -87,7 +89,7 @@ export function findKinks(
       const turn = Math.atan(after.slope) - Math.atan(before.slope)
       excess = turn - curvatureAt(x) * KINK_SPAN_MM
       const noise = edgeSigmaMm * Math.hypot(before.unitSigma, after.unitSigma)
-      if (Math.abs(excess) <= Math.max((KINK_DEG * Math.PI) / 180, 3 * noise)) excess = 0
+      if (Math.abs(excess) <= Math.max((KINK_DEG * Math.PI) / 180, KINK_NOISE_SIGMAS * noise)) excess = 0
     }
     if (excess !== 0 && (!current || Math.abs(radToDeg(excess)) > Math.abs(current.angleDeg)))
       current = { alongMm: x, angleDeg: radToDeg(excess) }

@@ -21,8 +21,13 @@ export interface SupportHull {
  * provisional touch point. Throws BLADE_CUT_OFF when no such bridge exists (no toe picks in the edge).
  */
 export function findSupportHull(work: readonly Vec2[]): SupportHull {
-  let lowest = 0
-  for (let i = 1; i < work.length; i++) if (work[i][1] < work[lowest][1]) lowest = i
+  const xs = work.map((p) => p[0])
+  const [minX, maxX] = [Math.min(...xs), Math.max(...xs)]
+  // The rocker's lowest point: the picks occupy the front tenth of a blade, so skip the front fifth in case a tilted
+  // photo puts a pick tip level with the rocker.
+  let lowest = -1
+  for (let i = 0; i < work.length; i++)
+    if (work[i][0] >= minX + 0.2 * (maxX - minX) && (lowest < 0 || work[i][1] < work[lowest][1])) lowest = i
   const hull = lowerHull(work)
   let best: SupportHull | null = null
   let bestLength = 0
