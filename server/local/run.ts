@@ -18,17 +18,19 @@ const profile = profileFor(mode)
 const startedAt = Number(process.env.ROCKERBOOK_STARTED_AT ?? Date.now())
 const children: ChildProcess[] = []
 let services: { stop(): Promise<void> } | null = null
-let shuttingDown = false
 
-async function shutdown(code: number): Promise<never> {
-  if (!shuttingDown) {
-    shuttingDown = true
+let shutdownDone: Promise<never> | null = null
+
+/** Stops children, then services, once; a second signal while stopping waits for the first stop to finish. */
+function shutdown(code: number): Promise<never> {
+  shutdownDone ??= (async () => {
     if (mode === 'start') step('Stopping everything npm start started…')
     await Promise.all(children.map((c) => stopProcess(c)))
     await services?.stop()
     if (mode === 'start') done('Stopped')
-  }
-  process.exit(code)
+    process.exit(code)
+  })()
+  return shutdownDone
 }
 process.on('SIGINT', () => void shutdown(0))
 process.on('SIGTERM', () => void shutdown(0))
