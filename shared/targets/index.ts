@@ -1,0 +1,4 @@
+export * from './bands'
+export * from './read'
+export * from './resolve'
+export * from './readings'
