@@ -36,19 +36,28 @@ function residuals(p: Params, q: readonly Vec2[], out: Float64Array): boolean {
 
 const sumSq = (r: Float64Array): number => r.reduce((s, v) => s + v * v, 0)
 
-/** Central-difference Jacobian; the residual is smooth in (A, D, θ), so this is accurate to ~1e-9. */
+/**
+ * Analytic Jacobian of d = 2P / (1 + √(1 + 4AP)) with respect to (A, D, θ), where P = A(x²+y²) + Bx + Cy + D,
+ * B = e·cos θ, C = e·sin θ, e = √(1 + 4AD). Null when the parameters leave the valid region.
+ */
 function jacobian(p: Params, q: readonly Vec2[]): Float64Array[] | null {
-  const h = 1e-6
-  const cols: Float64Array[] = []
-  const plus = new Float64Array(q.length)
-  const minus = new Float64Array(q.length)
-  for (let k = 0; k < 3; k++) {
-    const pp = [...p] as Params
-    const pm = [...p] as Params
-    pp[k] += h
-    pm[k] -= h
-    if (!residuals(pp, q, plus) || !residuals(pm, q, minus)) return null
-    cols.push(plus.map((v, i) => (v - minus[i]) / (2 * h)))
+  const [a, d, theta] = p
+  const e = Math.sqrt(1 + 4 * a * d)
+  if (!(e > 0)) return null
+  const [cos, sin] = [Math.cos(theta), Math.sin(theta)]
+  const cols = [new Float64Array(q.length), new Float64Array(q.length), new Float64Array(q.length)]
+  for (let i = 0; i < q.length; i++) {
+    const [x, y] = q[i]
+    const u = x * cos + y * sin
+    const P = a * (x * x + y * y) + e * u + d
+    const Q = Math.sqrt(1 + 4 * a * P)
+    if (!(Q > 0)) return null
+    const den = (1 + Q) * (1 + Q)
+    const dP = (2 * (1 + Q) - (4 * a * P) / Q) / den
+    const dADirect = (-4 * P * P) / (Q * den)
+    cols[0][i] = dP * (x * x + y * y + ((2 * d) / e) * u) + dADirect
+    cols[1][i] = dP * (1 + ((2 * a) / e) * u)
+    cols[2][i] = dP * e * (-x * sin + y * cos)
   }
   return cols
 }
@@ -94,8 +103,9 @@ export function geometricFit(points: readonly Vec2[], start?: AlgebraicCircle): 
       lambda = Math.max(lambda * 0.3, 1e-12)
       if (gain <= 1e-14 * cost || Math.hypot(...delta) < 1e-13) break
     } else {
+      // At the minimum every step fails; stop once the rejected step is negligible instead of raising λ for ever.
+      if (Math.hypot(...delta) < 1e-10 * (1 + Math.hypot(...p)) || lambda > 1e8) break
       lambda *= 10
-      if (lambda > 1e12) break
     }
   }
   return finish(p, s, init.mean, cost, points.length, iterations)

@@ -65,15 +65,33 @@ export function findRockerStart(pts: readonly Vec2[], ang: Float64Array, fromInd
   return null
 }
 
-/**
- * Last rocker point before the heel corner: walking back from E, the first point whose direction is within
- * thresholdDeg of L. The corner that rounds up into E is not rocker and would bend a circle fitted over it.
- */
-export function rockerEndIndex(ang: Float64Array, heelIndex: number, fromIndex: number, thresholdDeg = 10): number {
-  const th = degToRad(thresholdDeg)
-  for (let i = heelIndex - 1; i > fromIndex; i--) if (Math.abs(ang[i]) <= th) return i
-  return fromIndex
+/** Index of the point about offsetMm of arc length from i (negative: toward the toe), clamped to the edge. */
+function stepAlong(pts: readonly Vec2[], i: number, offsetMm: number): number {
+  const dir = Math.sign(offsetMm)
+  let j = i
+  while (j + dir >= 0 && j + dir < pts.length && Math.hypot(pts[j][0] - pts[i][0], pts[j][1] - pts[i][1]) < Math.abs(offsetMm)) j += dir
+  return j
 }
+
+/**
+ * Where the rocker proper meets a corner: walking from `from` in steps of `dir` (−1 toward the toe, +1 toward the
+ * heel), the first point whose direction is within toleranceDeg of the direction lookMm further into the rocker.
+ * A corner turns ~14°/mm, a 1.5 m rocker 0.04°/mm, so this stops within a few tenths of a millimetre of the corner's
+ * start without knowing its radius. Falls back to `stop`.
+ */
+export function cornerStart(pts: readonly Vec2[], ang: Float64Array, from: number, stop: number, toleranceDeg = 2, lookMm = 3): number {
+  const dir = Math.sign(stop - from) || 1
+  const tol = degToRad(toleranceDeg)
+  for (let i = from; i !== stop; i += dir) {
+    const j = stepAlong(pts, i, dir * lookMm)
+    if (Math.abs(ang[i] - ang[j]) <= tol) return i
+  }
+  return stop
+}
+
+/** Last rocker point before the heel corner that rounds up into E; the corner would bend a circle fitted over it. */
+export const rockerEndIndex = (pts: readonly Vec2[], ang: Float64Array, heelIndex: number, touchIndex: number): number =>
+  cornerStart(pts, ang, heelIndex - 1, touchIndex)
 
 /** Length of rocker fitted to extrapolate the heel lift to the heel station (mm). */
 export const STATION_FIT_LENGTH_MM = 60

@@ -1,6 +1,7 @@
 import type { GeometricFit } from './circle-geometric'
 import type { BladeFrame, ToeSide } from './frames'
-import { bladeToCard, cardToWork, workFrameToCard } from './frames'
+import { workFrameToCard } from './frames'
+import { cardToWork } from './frames'
 import { ProfileError } from './profile-error'
 import { findSupportHull, refineTouchPoint } from './support-line'
 import type { Vec2 } from './vec'
@@ -47,16 +48,27 @@ export function detectSupport(work: readonly Vec2[], toe: ToeSide): Support {
 
 /**
  * Moves B to where a person dragged it: among edge points in front of T within 0.5 mm of alongMm (detected frame),
- * the lowest one — the tip a support line would rest on; else the point nearest in along. L is then found again
- * as the tangent from the new B to the rocker.
+ * the lowest one — the tip a support line would rest on; else the point nearest in along. L is then the line from
+ * the new B resting on the rocker (from rockerFromIndex on): the least steep line to any rocker point, refined by
+ * the local circle as in detection.
  */
-export function overrideBasePick(work: readonly Vec2[], toe: ToeSide, detected: Support, blade: readonly Vec2[], alongMm: number): Support {
+export function overrideBasePick(
+  work: readonly Vec2[],
+  toe: ToeSide,
+  detected: Support,
+  blade: readonly Vec2[],
+  alongMm: number,
+  rockerFromIndex: number,
+): Support {
   let best = -1
   let nearest = 0
   for (let i = 0; i < blade.length && blade[i][0] < detected.touchPointMm; i++) {
     if (Math.abs(blade[i][0] - alongMm) < Math.abs(blade[nearest][0] - alongMm)) nearest = i
     if (Math.abs(blade[i][0] - alongMm) <= 0.5 && (best < 0 || blade[i][1] < blade[best][1])) best = i
   }
-  const t = cardToWork(toe, bladeToCard(detected.frame, [detected.touchPointMm, 0]))
-  return supportFrom(work, toe, best >= 0 ? best : nearest, t)
+  const b = work[best >= 0 ? best : nearest]
+  let rest = Math.max(rockerFromIndex, (best >= 0 ? best : nearest) + 1)
+  const slope = (p: Vec2) => Math.atan2(p[1] - b[1], p[0] - b[0])
+  for (let i = rest; i < work.length; i++) if (work[i][0] > b[0] && slope(work[i]) < slope(work[rest])) rest = i
+  return supportFrom(work, toe, best >= 0 ? best : nearest, work[rest])
 }

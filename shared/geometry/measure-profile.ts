@@ -4,7 +4,7 @@ import { findFlatSpots, findKinks } from './defects'
 import type { BladeFrame, ToeSide } from './frames'
 import { bladeToCard, cardToBlade } from './frames'
 import type { EdgeMark } from './heel'
-import { directionAngles, extrapolateStationLift, findHeelEnd, findRockerStart, rockerEndIndex } from './heel'
+import { cornerStart, directionAngles, extrapolateStationLift, findHeelEnd, findRockerStart, rockerEndIndex } from './heel'
 import { MM_PER_INCH } from './hollow'
 import type { Support } from './landmarks'
 import { detectSupport, orderedWork, overrideBasePick } from './landmarks'
@@ -70,7 +70,9 @@ function locate(input: ProfileInput): Located {
   let blade = card.map((p) => cardToBlade(support.frame, p))
   const o = input.overrides
   if (o?.basePickAlongMm !== undefined) {
-    support = overrideBasePick(work, input.toe, support, blade, o.basePickAlongMm)
+    const tIndex = blade.findIndex((p, i) => i > support.basePickIndex && p[0] >= support.touchPointMm)
+    const start = findRockerStart(blade, directionAngles(blade), tIndex)
+    support = overrideBasePick(work, input.toe, support, blade, o.basePickAlongMm, start ? start.index : tIndex)
     blade = card.map((p) => cardToBlade(support.frame, p))
   }
   const touchIndex = Math.max(blade.findIndex((p, i) => i > support.basePickIndex && p[0] >= support.touchPointMm), 1)
@@ -96,8 +98,8 @@ export function measureProfile(input: ProfileInput): ProfileMeasurement {
   const loc = locate(input)
   const { blade, angles, heel, touchIndex, support } = loc
   const start = findRockerStart(blade, angles, touchIndex)
-  const startIndex = firstStraight(angles, start ? start.index : support.basePickIndex + 1, touchIndex)
-  const endIndex = rockerEndIndex(angles, heel.index, touchIndex)
+  const startIndex = cornerStart(blade, angles, start ? start.index : support.basePickIndex + 1, touchIndex)
+  const endIndex = rockerEndIndex(blade, angles, heel.index, touchIndex)
   const rocker = blade.slice(startIndex, endIndex + 1)
   const [startX, endX] = [blade[startIndex][0], blade[endIndex][0]]
   const profile = radiusProfile(rocker, startX, endX)
@@ -145,12 +147,6 @@ export function measureProfile(input: ProfileInput): ProfileMeasurement {
     rockerEndAlongMm: endX,
     edgeResidualMm,
   }
-}
-
-/** First point from `from` toward T whose direction is within 10° of L: where the rocker proper begins. */
-function firstStraight(angles: Float64Array, from: number, touchIndex: number): number {
-  for (let i = from; i < touchIndex; i++) if (Math.abs(angles[i]) <= (10 * Math.PI) / 180) return i
-  return from
 }
 
 interface StationResult {

@@ -74,8 +74,8 @@ describe('heel end, rocker start and station', () => {
     const s = findRockerStart(edge, ang, tIndex)!
     expect(s.point[0]).toBeGreaterThan(3.5)
     expect(s.point[0]).toBeLessThan(5.5)
-    // The rocker ends where the corner passes 10°, about 0.5 mm into a 5 mm corner that starts at 4.6°.
-    expect(Math.abs(edge[rockerEndIndex(ang, e.index, tIndex)][0] - last[0])).toBeLessThan(1)
+    // The rocker ends where the 5 mm corner starts, found to within the ±0.5 mm chord of the direction estimate.
+    expect(Math.abs(edge[rockerEndIndex(edge, ang, e.index, tIndex)][0] - last[0])).toBeLessThan(0.6)
     expect(findHeelEnd(rocker, directionAngles(rocker), 100)).toBeNull()
   })
 
