@@ -1,11 +1,26 @@
+import { Account } from '../entities/account.entity'
+import { AuthSession } from '../entities/auth-session.entity'
+import { EmailToken } from '../entities/email-token.entity'
 import { OutboundMail } from '../entities/outbound-mail.entity'
+import { ShopInvitation } from '../entities/shop-invitation.entity'
+import { ShopMember } from '../entities/shop-member.entity'
+import { Shop } from '../entities/shop.entity'
+import { SkaterProfile } from '../entities/skater-profile.entity'
+import { SkaterShare } from '../entities/skater-share.entity'
 import { CreateSeedRuns1764640000000 } from '../migrations/1764640000000-CreateSeedRuns'
 import { CreateOutboundMails1764640100000 } from '../migrations/1764640100000-CreateOutboundMails'
+import { CreateAccounts1764650000000 } from '../migrations/1764650000000-CreateAccounts'
+import { CreateSkatersShopsShares1764650100000 } from '../migrations/1764650100000-CreateSkatersShopsShares'
 
 /**
  * Every entity and migration, imported explicitly: loading them by file glob bypasses the test runner's
  * TypeScript transform, and an explicit list shows in review what a change adds. Keep migrations in time order.
  */
-export const entities = [OutboundMail]
+export const entities = [OutboundMail, Account, AuthSession, EmailToken, SkaterProfile, Shop, ShopMember, ShopInvitation, SkaterShare]
 
-export const migrations = [CreateSeedRuns1764640000000, CreateOutboundMails1764640100000]
+export const migrations = [
+  CreateSeedRuns1764640000000,
+  CreateOutboundMails1764640100000,
+  CreateAccounts1764650000000,
+  CreateSkatersShopsShares1764650100000,
+]

@@ -1,12 +1,22 @@
 import { Router } from 'express'
 import type { AppContext } from '../context'
+import { originCheck } from '../middleware/origin-check'
+import { loadSession } from '../middleware/require-auth'
+import { adminRoutes } from './admin.routes'
+import { authRoutes } from './auth.routes'
 import { devRoutes } from './dev.routes'
 import { healthRoutes } from './health.routes'
+import { shareRoutes } from './share.routes'
+import { shopRoutes } from './shop.routes'
+import { skaterRoutes } from './skater.routes'
 
 /** Every `/api` router, in one list. A new resource adds its `<name>.routes.ts` here. */
 export function apiRoutes(ctx: AppContext): Router {
   const api = Router()
+  // Every state-changing call must come from the app's own origin; the session (if any) is read once for all routers.
+  api.use(originCheck(ctx.config.PUBLIC_URL), loadSession(ctx))
   api.use(healthRoutes(ctx))
+  api.use(authRoutes(ctx), skaterRoutes(ctx), shareRoutes(ctx), shopRoutes(ctx), adminRoutes(ctx))
   const dev = devRoutes(ctx)
   if (dev) api.use(dev)
   return api
