@@ -69,7 +69,7 @@ export function projectWear(series: readonly WearPoint[], band: Band, minPoints 
   const line = theilSen(series.map((p) => ({ x: p.sharpenings, y: p.value })))!
   const now = Math.max(...series.map((p) => p.sharpenings))
   const nowValue = line.intercept + line.slope * now
-  const towards = line.slope > FLAT_SLOPE ? 'max' : line.slope < -FLAT_SLOPE ? 'min' : null
+  const towards: WearProjection['towards'] = line.slope > FLAT_SLOPE ? 'max' : line.slope < -FLAT_SLOPE ? 'min' : null
   const base = { line, nowSharpenings: now, nowValue, towards }
   const outside = (band.min !== null && nowValue < band.min) || (band.max !== null && nowValue > band.max)
   if (outside) return { ...base, remaining: 0 }
