@@ -4,6 +4,8 @@ import { originCheck } from '../middleware/origin-check'
 import { loadSession } from '../middleware/require-auth'
 import { adminRoutes } from './admin.routes'
 import { authRoutes } from './auth.routes'
+import { bladeRoutes } from './blade.routes'
+import { cardRoutes } from './card.routes'
 import { devRoutes } from './dev.routes'
 import { healthRoutes } from './health.routes'
 import { shareRoutes } from './share.routes'
@@ -17,6 +19,7 @@ export function apiRoutes(ctx: AppContext): Router {
   api.use(originCheck(ctx.config.PUBLIC_URL), loadSession(ctx))
   api.use(healthRoutes(ctx))
   api.use(authRoutes(ctx), skaterRoutes(ctx), shareRoutes(ctx), shopRoutes(ctx), adminRoutes(ctx))
+  api.use(cardRoutes(ctx), bladeRoutes(ctx))
   const dev = devRoutes(ctx)
   if (dev) api.use(dev)
   return api
