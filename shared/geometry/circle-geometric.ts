@@ -34,7 +34,11 @@ function residuals(p: Params, q: readonly Vec2[], out: Float64Array): boolean {
   return true
 }
 
-const sumSq = (r: Float64Array): number => r.reduce((s, v) => s + v * v, 0)
+function sumSq(r: Float64Array): number {
+  let s = 0
+  for (let i = 0; i < r.length; i++) s += r[i] * r[i]
+  return s
+}
 
 /**
  * Analytic Jacobian of d = 2P / (1 + √(1 + 4AP)) with respect to (A, D, θ), where P = A(x²+y²) + Bx + Cy + D,
@@ -64,8 +68,17 @@ function jacobian(p: Params, q: readonly Vec2[]): Float64Array[] | null {
 
 /** One damped normal-equation step (JᵀJ + λ·diag(JᵀJ)) δ = −Jᵀr. */
 function lmStep(jac: Float64Array[], r: Float64Array, lambda: number): number[] | null {
-  const h = [0, 1, 2].map((i) => [0, 1, 2].map((j) => jac[i].reduce((s, v, n) => s + v * jac[j][n], 0)))
-  const g = [0, 1, 2].map((i) => jac[i].reduce((s, v, n) => s + v * r[n], 0))
+  const h = [[0, 0, 0], [0, 0, 0], [0, 0, 0]]
+  const g = [0, 0, 0]
+  for (let n = 0; n < r.length; n++) {
+    const j0 = jac[0][n]
+    const j1 = jac[1][n]
+    const j2 = jac[2][n]
+    h[0][0] += j0 * j0; h[0][1] += j0 * j1; h[0][2] += j0 * j2
+    h[1][1] += j1 * j1; h[1][2] += j1 * j2; h[2][2] += j2 * j2
+    g[0] += j0 * r[n]; g[1] += j1 * r[n]; g[2] += j2 * r[n]
+  }
+  h[1][0] = h[0][1]; h[2][0] = h[0][2]; h[2][1] = h[1][2]
   for (let i = 0; i < 3; i++) h[i][i] += lambda * h[i][i] + 1e-18
   return solve(h, g.map((v) => -v))
 }
