@@ -6,7 +6,7 @@ import { coinRadiusSixteenths, sixteenthsToMm } from '../geometry/hollow'
  * (Canada $1, UK 20p, 50p and £1, euro 20c) are left out: they are no radius reference.
  */
 
-export type CoinIssuer = 'US' | 'Canada' | 'euro area' | 'UK'
+export type CoinIssuer = 'US' | 'Canada' | 'euro' | 'UK'
 
 export interface Coin {
   id: string
@@ -37,12 +37,12 @@ export const COINS: readonly Coin[] = [
   { id: 'ca-10c', issuer: 'Canada', denomination: '10¢', diameterMm: 18.03, source: CA },
   { id: 'ca-25c', issuer: 'Canada', denomination: '25¢', diameterMm: 23.88, source: CA },
   { id: 'ca-2d', issuer: 'Canada', denomination: '$2', diameterMm: 28.0, source: CA_OWN },
-  { id: 'eu-1c', issuer: 'euro area', denomination: '1 cent', diameterMm: 16.25, source: EU },
-  { id: 'eu-2c', issuer: 'euro area', denomination: '2 cent', diameterMm: 18.75, source: EU },
-  { id: 'eu-5c', issuer: 'euro area', denomination: '5 cent', diameterMm: 21.25, source: EU },
-  { id: 'eu-10c', issuer: 'euro area', denomination: '10 cent', diameterMm: 19.75, source: EU },
-  { id: 'eu-50c', issuer: 'euro area', denomination: '50 cent', diameterMm: 24.25, source: EU },
-  { id: 'eu-2e', issuer: 'euro area', denomination: '€2', diameterMm: 25.75, source: EU },
+  { id: 'eu-1c', issuer: 'euro', denomination: '1 cent', diameterMm: 16.25, source: EU },
+  { id: 'eu-2c', issuer: 'euro', denomination: '2 cent', diameterMm: 18.75, source: EU },
+  { id: 'eu-5c', issuer: 'euro', denomination: '5 cent', diameterMm: 21.25, source: EU },
+  { id: 'eu-10c', issuer: 'euro', denomination: '10 cent', diameterMm: 19.75, source: EU },
+  { id: 'eu-50c', issuer: 'euro', denomination: '50 cent', diameterMm: 24.25, source: EU },
+  { id: 'eu-2e', issuer: 'euro', denomination: '€2', diameterMm: 25.75, source: EU },
   { id: 'uk-1p', issuer: 'UK', denomination: '1p', diameterMm: 20.3, source: UK },
   { id: 'uk-2p', issuer: 'UK', denomination: '2p', diameterMm: 25.9, source: UK },
   { id: 'uk-5p', issuer: 'UK', denomination: '5p', diameterMm: 18.0, source: UK },

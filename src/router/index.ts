@@ -14,6 +14,7 @@ declare module 'vue-router' {
 const routes: RouteRecordRaw[] = [
   { path: '/', name: 'home', component: HomeView, meta: { title: 'Home' } },
   { path: '/sign-in', name: 'sign-in', component: () => import('../views/SignInView.vue'), meta: { title: 'Sign in' } },
+  { path: '/hollow', name: 'hollow', component: () => import('../views/HollowView.vue'), meta: { title: 'Hollow' } },
   { path: '/mailbox', name: 'mailbox', component: () => import('../views/MailboxView.vue'), meta: { title: 'Mailbox' } },
   { path: '/forbidden', name: 'forbidden', component: () => import('../views/ForbiddenView.vue'), meta: { title: 'No access' } },
   { path: '/:pathMatch(.*)*', name: 'not-found', component: () => import('../views/NotFoundView.vue'), meta: { title: 'Not found' } },

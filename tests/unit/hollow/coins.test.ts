@@ -25,7 +25,7 @@ describe('coin list', () => {
   })
   it('leaves out the coins that are not round (REFERENCES.md): Canada $1, UK 20p, 50p and £1, euro 20c', () => {
     const labels = COINS.map((c) => `${c.issuer} ${c.denomination}`)
-    for (const notRound of ['Canada $1', 'UK 20p', 'UK 50p', 'UK £1', 'euro area 20 cent']) {
+    for (const notRound of ['Canada $1', 'UK 20p', 'UK 50p', 'UK £1', 'euro 20 cent']) {
       expect(labels).not.toContain(notRound)
     }
     expect(COINS).toHaveLength(22)
@@ -35,7 +35,7 @@ describe('coin list', () => {
     const sources: Record<Coin['issuer'], RegExp> = {
       US: /United States Mint/,
       Canada: /Royal Canadian Mint/,
-      'euro area': /Council Regulation \(EC\) No 975\/98/,
+      'euro': /Council Regulation \(EC\) No 975\/98/,
       UK: /The Royal Mint/,
     }
     for (const coin of COINS) expect(coin.source).toMatch(sources[coin.issuer])
