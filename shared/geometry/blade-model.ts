@@ -75,36 +75,9 @@ export function bladeModel(o: BladeModelOptions): BladeModel {
   const step = o.stepMm ?? 0.1
   const tp = o.touchPointMm ?? 40
   const nominal = o.sizeIn * MM_PER_INCH
-  const rearX = TEETH[0][0] + nominal - (o.tailShortMm ?? 0)
-  const corner = o.cornerRadiusMm ?? 4
-  const heelFrom = tp + (o.heelFromMm ?? 100)
-  const curvature = (x: number): number => {
-    if (o.flat && x >= o.flat[0] && x < o.flat[1]) return 0
-    const r = x < tp + 20 ? (o.toeRadiusMm ?? 1500) : x < heelFrom ? (o.middleRadiusMm ?? 2200) : (o.heelRadiusMm ?? 1900)
-    return 1 / r
-  }
-  const front: Vec2[] = []
-  let p: Vec2 = [tp, 0]
-  let theta = 0
-  while (p[0] > ROCKER_START_MM) {
-    ;[p, theta] = arcStep(p, theta, curvature(p[0]), -step)
-    front.push(p)
-  }
-  front.reverse()
-  const rocker: Vec2[] = [...front, [tp, 0]]
-  p = [tp, 0]
-  theta = 0
-  let kinked = false
-  while (p[0] + corner * (1 - Math.sin(theta)) < rearX) {
-    ;[p, theta] = arcStep(p, theta, curvature(p[0]), step)
-    if (o.kink && !kinked && p[0] >= o.kink.alongMm) {
-      theta += (o.kink.angleDeg * Math.PI) / 180
-      kinked = true
-    }
-    rocker.push(p)
-  }
-  const cornerStart: [Vec2, number] = [p, theta]
-  const { points: heel, heelEnd } = heelCorner(p, theta, corner, step)
+  const curvature = curvatureSchedule(o, tp)
+  const { front, rocker, end } = integrateRocker(o, tp, curvature, TEETH[0][0] + nominal - (o.tailShortMm ?? 0))
+  const { points: heel, heelEnd } = heelCorner(end[0], end[1], o.cornerRadiusMm ?? 4, step)
   const toe = densify([...TEETH, [3, front[0][1] + 5], front[0]], step)
   const bladeMm = [...toe, ...rocker, ...heel]
   const station = nominal - 45
@@ -116,11 +89,51 @@ export function bladeModel(o: BladeModelOptions): BladeModel {
       heelEnd,
       heelLiftMm: heelEnd[1],
       heelStationAlongMm: station,
-      heelLiftStationMm: heelEnd[0] >= station ? null : continueCircle(cornerStart, curvature(cornerStart[0][0] - 1), station),
+      heelLiftStationMm: heelEnd[0] >= station ? null : continueCircle(end, curvature(end[0][0] - 1), station),
       rockerStartAlongMm: front[0][0],
       lengthMm: Math.max(...bladeMm.map((q) => q[0])) - Math.min(...bladeMm.map((q) => q[0])),
     },
   }
+}
+
+/** Curvature (1/mm) at x along L: toe section to T + 20, middle to the heel section, heel after; 0 on a flat. */
+function curvatureSchedule(o: BladeModelOptions, tp: number): (x: number) => number {
+  const heelFrom = tp + (o.heelFromMm ?? 100)
+  return (x) => {
+    if (o.flat && x >= o.flat[0] && x < o.flat[1]) return 0
+    const r = x < tp + 20 ? (o.toeRadiusMm ?? 1500) : x < heelFrom ? (o.middleRadiusMm ?? 2200) : (o.heelRadiusMm ?? 1900)
+    return 1 / r
+  }
+}
+
+/**
+ * Integrates the rocker from T (where it touches L with zero slope) toward the toe until the rocker start, and
+ * toward the heel until the heel corner of the given radius would reach rearX. Returns the rocker toe → heel and
+ * the point and direction where the corner begins.
+ */
+function integrateRocker(o: BladeModelOptions, tp: number, curvature: (x: number) => number, rearX: number) {
+  const step = o.stepMm ?? 0.1
+  const corner = o.cornerRadiusMm ?? 4
+  const front: Vec2[] = []
+  let p: Vec2 = [tp, 0]
+  let theta = 0
+  while (p[0] > ROCKER_START_MM) {
+    ;[p, theta] = arcStep(p, theta, curvature(p[0]), -step)
+    front.push(p)
+  }
+  front.reverse()
+  const rocker: Vec2[] = [...front, [tp, 0]]
+  ;[p, theta] = [[tp, 0], 0]
+  let kinked = false
+  while (p[0] + corner * (1 - Math.sin(theta)) < rearX) {
+    ;[p, theta] = arcStep(p, theta, curvature(p[0]), step)
+    if (o.kink && !kinked && p[0] >= o.kink.alongMm) {
+      theta += (o.kink.angleDeg * Math.PI) / 180
+      kinked = true
+    }
+    rocker.push(p)
+  }
+  return { front, rocker, end: [p, theta] as [Vec2, number] }
 }
 
 /** The heel corner: an arc of the given radius turning up to vertical, with E where it passes 45°, then 4 mm up. */

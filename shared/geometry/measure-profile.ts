@@ -96,33 +96,25 @@ function nearestBehind(blade: readonly Vec2[], from: number, alongMm: number): E
  */
 export function measureProfile(input: ProfileInput): ProfileMeasurement {
   const loc = locate(input)
-  const { blade, angles, heel, touchIndex, support } = loc
-  const start = findRockerStart(blade, angles, touchIndex)
-  const startIndex = cornerStart(blade, angles, start ? start.index : support.basePickIndex + 1, touchIndex)
-  const endIndex = rockerEndIndex(blade, angles, heel.index, touchIndex)
-  const rocker = blade.slice(startIndex, endIndex + 1)
-  const [startX, endX] = [blade[startIndex][0], blade[endIndex][0]]
-  const profile = radiusProfile(rocker, startX, endX)
+  const { blade, heel, support } = loc
+  const r = rockerOf(loc)
+  const profile = radiusProfile(r.rocker, r.startX, r.endX)
   const edgeResidualMm = profile.length ? median(profile.map((w) => w.rmsMm)) : input.edgeSigmaMm
   const sigma = Math.max(input.edgeSigmaMm, edgeResidualMm)
-  const station = stationLift(input, blade, heel, endX)
+  const station = stationLift(input, blade, heel, r.endX)
   const radiusT = touchRadius(support, profile)
   const unc = measureUncertainty({
     noise: { edgeSigmaMm: sigma, calibrationSigmaMm: input.calibrationSigmaMm },
-    support, profile, heel, angles, blade, station, radiusT,
+    support, profile, heel, angles: loc.angles, blade, station, radiusT,
   })
-  const warnings = lengthWarnings(input, blade)
-  if (!Number.isFinite(radiusT)) warnings.push({ code: 'STRAIGHT_AT_TOUCH', message: 'The rocker is straight at the touch point; contact length is a lower bound.' })
-  if (station.unreachable) warnings.push({ code: 'HEEL_STATION_UNREACHABLE', message: 'The heel station lies beyond the rocker\u2019s fitted circle.' })
   const rT = Number.isFinite(radiusT) ? radiusT : 1 / STRAIGHT_CURVATURE
-  const mark = (alongMm: number, at: Vec2) => ({ alongMm, cardMm: bladeToCard(support.frame, at) as [number, number] })
   return {
     touchPointMm: support.touchPointMm,
     heelLiftMm: heel.point[1],
     heelLiftStationMm: station.liftMm,
     heelLiftExtrapolated: station.liftMm !== null,
     contactLengthMm: contactLength(rT),
-    bladeLengthMm: Math.max(...blade.map((p) => p[0])) - Math.min(...blade.map((p) => p[0])),
+    bladeLengthMm: lengthAlong(blade),
     uncertainty: {
       touchPointMm: unc.touchPointMm,
       heelLiftMm: unc.heelLiftMm,
@@ -131,22 +123,47 @@ export function measureProfile(input: ProfileInput): ProfileMeasurement {
       radiusRelative: unc.radiusRelative,
     },
     radiusProfile: profile.map(({ alongMm, curvaturePerMm, radiusMm }) => ({ alongMm, curvaturePerMm, radiusMm })),
-    sectionRadii: sectionRadii(rocker, startX, support.touchPointMm, endX),
-    flatSpots: findFlatSpots(rocker, startX, endX),
-    kinks: findKinks(rocker, startX, endX, curvatureLookup(profile, radiusT), sigma),
-    landmarks: {
-      basePick: mark(0, [0, 0]),
-      touchPoint: mark(support.touchPointMm, [support.touchPointMm, 0]),
-      heelEnd: mark(heel.point[0], heel.point),
-    },
-    warnings,
+    sectionRadii: sectionRadii(r.rocker, r.startX, support.touchPointMm, r.endX),
+    flatSpots: findFlatSpots(r.rocker, r.startX, r.endX),
+    kinks: findKinks(r.rocker, r.startX, r.endX, curvatureLookup(profile, radiusT), sigma),
+    landmarks: landmarks(support, heel),
+    warnings: warningsFor(input, blade, radiusT, station.unreachable),
     overrides: input.overrides && Object.keys(input.overrides).length ? { ...input.overrides } : null,
     frame: support.frame,
     bladeMm: blade,
-    rockerStartAlongMm: startX,
-    rockerEndAlongMm: endX,
+    rockerStartAlongMm: r.startX,
+    rockerEndAlongMm: r.endX,
     edgeResidualMm,
   }
+}
+
+/** The rocker proper, from where it leaves the pick gap to where the heel corner begins (blade frame, by x). */
+function rockerOf({ blade, angles, heel, touchIndex, support }: Located): { rocker: Vec2[]; startX: number; endX: number } {
+  const start = findRockerStart(blade, angles, touchIndex)
+  const startIndex = cornerStart(blade, angles, start ? start.index : support.basePickIndex + 1, touchIndex)
+  const endIndex = rockerEndIndex(blade, angles, heel.index, touchIndex)
+  return { rocker: blade.slice(startIndex, endIndex + 1), startX: blade[startIndex][0], endX: blade[endIndex][0] }
+}
+
+const lengthAlong = (blade: readonly Vec2[]): number =>
+  Math.max(...blade.map((p) => p[0])) - Math.min(...blade.map((p) => p[0]))
+
+function landmarks(support: Support, heel: EdgeMark): ProfileMeasurement['landmarks'] {
+  const mark = (alongMm: number, at: Vec2) => ({ alongMm, cardMm: bladeToCard(support.frame, at) as [number, number] })
+  return {
+    basePick: mark(0, [0, 0]),
+    touchPoint: mark(support.touchPointMm, [support.touchPointMm, 0]),
+    heelEnd: mark(heel.point[0], heel.point),
+  }
+}
+
+function warningsFor(input: ProfileInput, blade: readonly Vec2[], radiusT: number, stationUnreachable: boolean): AnalysisWarning[] {
+  const warnings = lengthWarnings(input, blade)
+  if (!Number.isFinite(radiusT))
+    warnings.push({ code: 'STRAIGHT_AT_TOUCH', message: 'The rocker is straight at the touch point; contact length is a lower bound.' })
+  if (stationUnreachable)
+    warnings.push({ code: 'HEEL_STATION_UNREACHABLE', message: 'The heel station lies beyond the rocker\u2019s fitted circle.' })
+  return warnings
 }
 
 interface StationResult {
@@ -182,8 +199,7 @@ function curvatureLookup(profile: readonly WindowFit[], radiusT: number): (x: nu
 }
 
 function lengthWarnings(input: ProfileInput, blade: readonly Vec2[]): AnalysisWarning[] {
-  const measured = Math.max(...blade.map((p) => p[0])) - Math.min(...blade.map((p) => p[0]))
-  const ratio = measured / (input.sizeIn * MM_PER_INCH)
+  const ratio = lengthAlong(blade) / (input.sizeIn * MM_PER_INCH)
   // Dance blades are shorter than their boot size by design, so only an over-length reads as a scale error there.
   const off = input.discipline === 'dance' ? ratio > 1 + LENGTH_TOLERANCE : Math.abs(ratio - 1) > LENGTH_TOLERANCE
   if (!off) return []
