@@ -14,7 +14,7 @@ export interface Cv {
   matFromArray(rows: number, cols: number, type: number, data: ArrayLike<number>): CvMat
   getPredefinedDictionary(name: number): { delete(): void }
   generateImageMarker(dict: unknown, id: number, sidePixels: number, out: CvMat, borderBits: number): void
-  aruco_DetectorParameters: new () => { delete(): void }
+  aruco_DetectorParameters: new () => { cornerRefinementMethod: number; delete(): void }
   aruco_RefineParameters: new (minRepDistance: number, errorCorrectionRate: number, checkAllOrders: boolean) => { delete(): void }
   aruco_ArucoDetector: new (dict: unknown, params: unknown, refine: unknown) => {
     detectMarkers(img: CvMat, corners: CvMatVector, ids: CvMat, rejected: CvMatVector): void
@@ -40,12 +40,17 @@ export function loadOpenCv(): Promise<Cv> {
   return loading
 }
 
-/** ArUco DICT_4X4_50 detections in a grey image: id → four corners in px (opencv's order: as printed, clockwise). */
-export async function detectMarkers(grey: Uint8Array, width: number, height: number): Promise<Map<number, number[][]>> {
+/**
+ * ArUco DICT_4X4_50 detections in a grey image: id → four corners in px (opencv's order: as printed, clockwise),
+ * optionally refined to sub-pixel by opencv's own corner refinement.
+ */
+export async function detectMarkers(grey: Uint8Array, width: number, height: number, subPixel = false): Promise<Map<number, number[][]>> {
   const cv = await loadOpenCv()
   const img = cv.matFromArray(height, width, cv.CV_8UC1, grey)
   const dict = cv.getPredefinedDictionary(cv.DICT_4X4_50)
   const params = new cv.aruco_DetectorParameters()
+  // CORNER_REFINE_SUBPIX = 1 in OpenCV's aruco module.
+  if (subPixel) params.cornerRefinementMethod = 1
   const refine = new cv.aruco_RefineParameters(10, 3, true)
   const detector = new cv.aruco_ArucoDetector(dict, params, refine)
   const corners = new cv.MatVector()
