@@ -130,6 +130,25 @@ describe('measureProfile with noise', () => {
   })
 })
 
+describe('measureProfile defects', () => {
+  it('reports a 25 mm flat put into the middle of the rocker, and nothing else', () => {
+    const o: BladeModelOptions = { sizeIn: 10, flat: [100, 125] }
+    const r = measureProfile(input(o, withNoise(bladeModel(o).edgeMm, 0.005, 7)))
+    expect(r.flatSpots).toHaveLength(1)
+    expect(Math.abs(r.flatSpots[0].fromAlongMm - 100)).toBeLessThan(3)
+    expect(Math.abs(r.flatSpots[0].toAlongMm - 125)).toBeLessThan(3)
+    expect(r.kinks).toEqual([])
+  })
+
+  it('reports a 2° kink where it was put', () => {
+    const o: BladeModelOptions = { sizeIn: 10, kink: { alongMm: 150, angleDeg: 2 } }
+    const r = measureProfile(input(o, withNoise(bladeModel(o).edgeMm, 0.005, 8), { edgeSigmaMm: 0.005 }))
+    expect(r.kinks).toHaveLength(1)
+    expect(r.kinks[0].alongMm).toBeCloseTo(150, 0)
+    expect(r.kinks[0].angleDeg).toBeGreaterThan(1.5)
+  })
+})
+
 describe('measureProfile overrides', () => {
   const o: BladeModelOptions = { sizeIn: 10 }
   const m = bladeModel(o)
