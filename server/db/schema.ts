@@ -13,18 +13,20 @@ import { ShopMember } from '../entities/shop-member.entity'
 import { Shop } from '../entities/shop.entity'
 import { SkaterProfile } from '../entities/skater-profile.entity'
 import { SkaterShare } from '../entities/skater-share.entity'
+import { TargetSetting } from '../entities/target-setting.entity'
 import { CreateSeedRuns1764640000000 } from '../migrations/1764640000000-CreateSeedRuns'
 import { CreateOutboundMails1764640100000 } from '../migrations/1764640100000-CreateOutboundMails'
 import { CreateAccounts1764650000000 } from '../migrations/1764650000000-CreateAccounts'
 import { CreateSkatersShopsShares1764650100000 } from '../migrations/1764650100000-CreateSkatersShopsShares'
 import { CreateBladeRecords1764660000000 } from '../migrations/1764660000000-CreateBladeRecords'
+import { CreateTargetSettings1764670000000 } from '../migrations/1764670000000-CreateTargetSettings'
 
 /**
  * Every entity and migration, imported explicitly: loading them by file glob bypasses the test runner's
  * TypeScript transform, and an explicit list shows in review what a change adds. Keep migrations in time order.
  */
 export const entities = [OutboundMail, Account, AuthSession, EmailToken, SkaterProfile, Shop, ShopMember, ShopInvitation, SkaterShare,
-  SkatePair, Blade, Photo, Analysis, Annotation, Sharpening]
+  SkatePair, Blade, Photo, Analysis, Annotation, Sharpening, TargetSetting]
 
 export const migrations = [
   CreateSeedRuns1764640000000,
@@ -32,4 +34,5 @@ export const migrations = [
   CreateAccounts1764650000000,
   CreateSkatersShopsShares1764650100000,
   CreateBladeRecords1764660000000,
+  CreateTargetSettings1764670000000,
 ]

@@ -11,6 +11,7 @@ import { healthRoutes } from './health.routes'
 import { shareRoutes } from './share.routes'
 import { shopRoutes } from './shop.routes'
 import { skaterRoutes } from './skater.routes'
+import { targetRoutes } from './target.routes'
 
 /** Every `/api` router, in one list. A new resource adds its `<name>.routes.ts` here. */
 export function apiRoutes(ctx: AppContext): Router {
@@ -20,6 +21,7 @@ export function apiRoutes(ctx: AppContext): Router {
   api.use(healthRoutes(ctx))
   api.use(authRoutes(ctx), skaterRoutes(ctx), shareRoutes(ctx), shopRoutes(ctx), adminRoutes(ctx))
   api.use(cardRoutes(ctx), bladeRoutes(ctx))
+  api.use(targetRoutes(ctx))
   const dev = devRoutes(ctx)
   if (dev) api.use(dev)
   return api
