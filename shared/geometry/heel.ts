@@ -89,6 +89,21 @@ export function cornerStart(pts: readonly Vec2[], ang: Float64Array, from: numbe
   return stop
 }
 
+/**
+ * Rocker start: walking from T toward the toe, the first point where the edge direction departs by more than
+ * toleranceDeg from the direction lookMm further toward the heel — where the rocker leaves the pick gap, whether
+ * the gap's rear face is steep or a gentle ramp. Returned one chord (0.5 mm) behind that point, so no direction
+ * measured on the rocker includes the gap. Tangent section joins and small kinks stay below the tolerance.
+ */
+export function rockerStartIndex(pts: readonly Vec2[], ang: Float64Array, touchIndex: number, toleranceDeg = 5, lookMm = 3): number {
+  const tol = degToRad(toleranceDeg)
+  for (let i = touchIndex - 1; i > 0; i--) {
+    const j = stepAlong(pts, i, lookMm)
+    if (Math.abs(ang[i] - ang[j]) > tol) return Math.min(stepAlong(pts, i, DIRECTION_HALF_CHORD_MM), touchIndex)
+  }
+  return 0
+}
+
 /** Last rocker point before the heel corner that rounds up into E; the corner would bend a circle fitted over it. */
 export const rockerEndIndex = (pts: readonly Vec2[], ang: Float64Array, heelIndex: number, touchIndex: number): number =>
   cornerStart(pts, ang, heelIndex - 1, touchIndex)

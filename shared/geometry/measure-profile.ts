@@ -4,7 +4,7 @@ import { findFlatSpots, findKinks } from './defects'
 import type { BladeFrame, ToeSide } from './frames'
 import { bladeToCard, cardToBlade } from './frames'
 import type { EdgeMark } from './heel'
-import { cornerStart, directionAngles, extrapolateStationLift, findHeelEnd, findRockerStart, rockerEndIndex } from './heel'
+import { directionAngles, extrapolateStationLift, findHeelEnd, findRockerStart, rockerEndIndex, rockerStartIndex } from './heel'
 import { MM_PER_INCH } from './hollow'
 import type { Support } from './landmarks'
 import { detectSupport, orderedWork, overrideBasePick } from './landmarks'
@@ -13,7 +13,7 @@ import type { WindowFit } from './radius-profile'
 import { PROFILE_STEP_MM, STRAIGHT_CURVATURE, radiusProfile, sectionRadii } from './radius-profile'
 import { measureUncertainty } from './profile-uncertainty'
 import type { Vec2 } from './vec'
-import { median } from './vec'
+import { median, radToDeg } from './vec'
 
 export type Discipline = 'freestyle' | 'dance' | 'pairs' | 'synchro'
 
@@ -97,7 +97,7 @@ function nearestBehind(blade: readonly Vec2[], from: number, alongMm: number): E
 export function measureProfile(input: ProfileInput): ProfileMeasurement {
   const loc = locate(input)
   const { blade, heel, support } = loc
-  const r = rockerOf(loc)
+  const r = rockerOf(loc, input.edgeSigmaMm)
   const profile = radiusProfile(r.rocker, r.startX, r.endX)
   const edgeResidualMm = profile.length ? median(profile.map((w) => w.rmsMm)) : input.edgeSigmaMm
   const sigma = Math.max(input.edgeSigmaMm, edgeResidualMm)
@@ -138,9 +138,10 @@ export function measureProfile(input: ProfileInput): ProfileMeasurement {
 }
 
 /** The rocker proper, from where it leaves the pick gap to where the heel corner begins (blade frame, by x). */
-function rockerOf({ blade, angles, heel, touchIndex, support }: Located): { rocker: Vec2[]; startX: number; endX: number } {
-  const start = findRockerStart(blade, angles, touchIndex)
-  const startIndex = cornerStart(blade, angles, start ? start.index : support.basePickIndex + 1, touchIndex)
+function rockerOf({ blade, angles, heel, touchIndex }: Located, edgeSigmaMm: number): { rocker: Vec2[]; startX: number; endX: number } {
+  // Tolerance: 5°, or 5σ of a direction difference (two ±0.5 mm chords, each σ·√2 / 1 mm) on a noisy edge.
+  const toleranceDeg = Math.max(5, radToDeg(5 * 2 * edgeSigmaMm))
+  const startIndex = rockerStartIndex(blade, angles, touchIndex, toleranceDeg)
   const endIndex = rockerEndIndex(blade, angles, heel.index, touchIndex)
   return { rocker: blade.slice(startIndex, endIndex + 1), startX: blade[startIndex][0], endX: blade[endIndex][0] }
 }

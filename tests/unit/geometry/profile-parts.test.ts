@@ -7,6 +7,7 @@ import {
   findRockerStart,
   lowerArcY,
   rockerEndIndex,
+  rockerStartIndex,
 } from '../../../shared/geometry/heel'
 import { fitWindow, radiusProfile, sectionRadii, slice } from '../../../shared/geometry/radius-profile'
 import { findFlatSpots, findKinks } from '../../../shared/geometry/defects'
@@ -77,6 +78,20 @@ describe('heel end, rocker start and station', () => {
     // The rocker ends where the 5 mm corner starts, found to within the ±0.5 mm chord of the direction estimate.
     expect(Math.abs(edge[rockerEndIndex(edge, ang, e.index, tIndex)][0] - last[0])).toBeLessThan(0.6)
     expect(findHeelEnd(rocker, directionAngles(rocker), 100)).toBeNull()
+  })
+
+  it('finds the rocker start behind a gentle ramp out of the pick gap as well as behind a steep face', () => {
+    // A 30° ramp from the gap's top (3, 4.5) down to the rocker at x = 10: no 45° turn, but a clear corner.
+    const ramp: Vec2[] = [[0, 0], [1.5, 2.25], [3, 4.5]]
+    const r = arc(1500, 40, 10, 120)
+    for (let x = 3.1; x < 10; x += 0.1) ramp.push([x, 4.5 + ((r[0][1] - 4.5) * (x - 3)) / 7])
+    const gentle = [...ramp, ...r]
+    const ang = directionAngles(gentle)
+    const tIndex = gentle.findIndex((p) => p[0] >= 40)
+    const start = gentle[rockerStartIndex(gentle, ang, tIndex)][0]
+    expect(start).toBeGreaterThan(10)
+    expect(start).toBeLessThan(11)
+    expect(edge[rockerStartIndex(edge, directionAngles(edge), edge.findIndex((p) => p[0] >= 40))][0]).toBeLessThan(6)
   })
 
   it('extrapolates along the fitted circle and reads its lower arc', () => {
