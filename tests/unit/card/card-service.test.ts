@@ -49,7 +49,7 @@ describe.each(papers)('card rendering %s', (paper) => {
     expect(meta.width).toBe(Math.round((layout.widthMm / 25.4) * dpi))
     expect(meta.height).toBe(Math.round((layout.heightMm / 25.4) * dpi))
     expect(meta.density).toBe(dpi)
-  })
+  }, 30_000)
 
   it('PNG markers are found by opencv at the layout positions', async () => {
     const pxPerMm = 6
@@ -64,12 +64,12 @@ describe.each(papers)('card rendering %s', (paper) => {
         expect(Math.abs(corners[k][1] - y * pxPerMm)).toBeLessThan(1.01)
       })
     }
-  })
+  }, 30_000)
 
   it('JSON is the layout and passes the schema', async () => {
     const parsed = cardLayoutSchema.parse(JSON.parse((await renderCard(paper, 'json')).toString('utf8')))
     expect(parsed).toEqual(layout)
-  })
+  }, 30_000)
 
   it('leaves the blade zone blank so nothing printed competes with the runner', async () => {
     const raster = await renderCardRaster(paper, 4)
@@ -83,7 +83,7 @@ describe.each(papers)('card rendering %s', (paper) => {
       }
     }
     expect(dark).toBe(0)
-  })
+  }, 30_000)
 })
 
 describe('renderCard arguments', () => {
