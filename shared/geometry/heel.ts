@@ -43,14 +43,26 @@ function crossing(pts: readonly Vec2[], ang: Float64Array, prev: number, i: numb
   return lerp(pts[prev], pts[i], t)
 }
 
+/** Arc length over which a turn must hold to count as the heel's (mm); a bump in a trace turns back sooner. */
+export const HEEL_TURN_HOLD_MM = 1
+
+/** True when the direction stays beyond th from i for holdMm of arc length (or to the end of the edge). */
+function turnHolds(pts: readonly Vec2[], ang: Float64Array, i: number, th: number, holdMm: number): boolean {
+  for (let j = i; j < pts.length && Math.hypot(pts[j][0] - pts[i][0], pts[j][1] - pts[i][1]) < holdMm; j++)
+    if (Math.abs(ang[j]) <= th) return false
+  return true
+}
+
 /**
  * Heel end E: the first point behind fromIndex (toward the heel) where the edge direction turns more than
- * thresholdDeg (45°) away from L. Null when the edge never turns that far (the heel is not in the trace).
+ * thresholdDeg (45°) away from L and stays turned for 1 mm — the heel face; a speck or glitch in the trace turns
+ * back within a fraction of that. Null when the edge never turns that far (the heel is not in the trace).
  */
 export function findHeelEnd(pts: readonly Vec2[], ang: Float64Array, fromIndex: number, thresholdDeg = 45): EdgeMark | null {
   const th = degToRad(thresholdDeg)
   for (let i = fromIndex + 1; i < pts.length; i++)
-    if (Math.abs(ang[i]) > th) return { point: crossing(pts, ang, i - 1, i, th), index: i }
+    if (Math.abs(ang[i]) > th && turnHolds(pts, ang, i, th, HEEL_TURN_HOLD_MM))
+      return { point: crossing(pts, ang, i - 1, i, th), index: i }
   return null
 }
 

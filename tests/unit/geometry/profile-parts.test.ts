@@ -80,6 +80,15 @@ describe('heel end, rocker start and station', () => {
     expect(findHeelEnd(rocker, directionAngles(rocker), 100)).toBeNull()
   })
 
+  it('does not take a short bump in the trace for the heel end', () => {
+    // A 0.8 mm high, 1.2 mm long glitch at x ≈ 120 turns the direction past 45° for a few tenths of a millimetre.
+    const bumped = edge.map((p): Vec2 => (Math.abs(p[0] - 120) < 0.6 ? [p[0], p[1] + 0.8 * (1 - Math.abs(p[0] - 120) / 0.6)] : p))
+    const ang = directionAngles(bumped)
+    expect(Math.max(...Array.from(ang).filter((_, i) => Math.abs(bumped[i][0] - 120) < 1).map(Math.abs))).toBeGreaterThan(Math.PI / 4)
+    const e = findHeelEnd(bumped, ang, bumped.findIndex((p) => p[0] >= 40))!
+    expect(e.point[0]).toBeCloseTo(last[0] + 5 * Math.SQRT1_2, 1)
+  })
+
   it('finds the rocker start behind a gentle ramp out of the pick gap as well as behind a steep face', () => {
     // A 30° ramp from the gap's top (3, 4.5) down to the rocker at x = 10: no 45° turn, but a clear corner.
     const ramp: Vec2[] = [[0, 0], [1.5, 2.25], [3, 4.5]]
