@@ -63,11 +63,13 @@ const PAPER_CODE: Record<Paper, string> = { a4: 'A4', letter: 'LT' }
 const FIRST_MARKER_ID: Record<Paper, number> = { a4: 0, letter: 16 }
 
 const MARKER_MM = 20
-const COLUMN_GAP_MM = 6
+/** Gap between the two marker columns: 1.5 cells of white, enough for the detector to separate them. */
+const COLUMN_GAP_MM = 5
 const ROWS = 4
-const EDGE_MARGIN_MM = 6
+/** Side margin: clear of the ~6.4 mm unprintable edge many printers keep, so no marker border is clipped. */
+const EDGE_MARGIN_MM = 8
 const TOP_MARGIN_MM = 8
-const BLOCK_TO_ZONE_MM = 2
+const BLOCK_TO_ZONE_MM = 1
 /** 12.25 in (311.15 mm) rounded down, as the design brief states it. */
 const LONGEST_BLADE_MM = 311
 const BLADE_SPARE_MM = 15
@@ -105,14 +107,17 @@ function markerBlocks(paper: Paper, heightMm: number): CardMarker[] {
   return markers
 }
 
+/** Rounds to a micrometre so derived positions print as the decimals they are (169.6, not 169.60000000000002). */
+const micro = (mm: number) => Math.round(mm * 1000) / 1000
+
 function sheets(paper: Paper, joinXMm: number): [CardSheet, CardSheet] {
   const { widthMm, heightMm } = PAPER_SIZES_MM[paper]
-  const sheet2X = CARD_WIDTH_MM - widthMm
+  const sheet2X = micro(CARD_WIDTH_MM - widthMm)
   return [
     { index: 1, offsetMm: [0, 0], widthMm, heightMm, visibleXMm: [0, joinXMm], cutLineXMm: null },
     {
       index: 2, offsetMm: [sheet2X, 0], widthMm, heightMm,
-      visibleXMm: [joinXMm, CARD_WIDTH_MM], cutLineXMm: joinXMm - sheet2X,
+      visibleXMm: [joinXMm, CARD_WIDTH_MM], cutLineXMm: micro(joinXMm - sheet2X),
     },
   ]
 }
