@@ -3,6 +3,7 @@ import { Analysis } from '../entities/analysis.entity'
 import { Annotation } from '../entities/annotation.entity'
 import { AuthSession } from '../entities/auth-session.entity'
 import { Blade } from '../entities/blade.entity'
+import { BladeBaseline } from '../entities/blade-baseline.entity'
 import { EmailToken } from '../entities/email-token.entity'
 import { OutboundMail } from '../entities/outbound-mail.entity'
 import { Photo } from '../entities/photo.entity'
@@ -20,13 +21,14 @@ import { CreateAccounts1764650000000 } from '../migrations/1764650000000-CreateA
 import { CreateSkatersShopsShares1764650100000 } from '../migrations/1764650100000-CreateSkatersShopsShares'
 import { CreateBladeRecords1764660000000 } from '../migrations/1764660000000-CreateBladeRecords'
 import { CreateTargetSettings1764670000000 } from '../migrations/1764670000000-CreateTargetSettings'
+import { CreateBladeBaselines1764670100000 } from '../migrations/1764670100000-CreateBladeBaselines'
 
 /**
  * Every entity and migration, imported explicitly: loading them by file glob bypasses the test runner's
  * TypeScript transform, and an explicit list shows in review what a change adds. Keep migrations in time order.
  */
 export const entities = [OutboundMail, Account, AuthSession, EmailToken, SkaterProfile, Shop, ShopMember, ShopInvitation, SkaterShare,
-  SkatePair, Blade, Photo, Analysis, Annotation, Sharpening, TargetSetting]
+  SkatePair, Blade, Photo, Analysis, Annotation, Sharpening, TargetSetting, BladeBaseline]
 
 export const migrations = [
   CreateSeedRuns1764640000000,
@@ -35,4 +37,5 @@ export const migrations = [
   CreateSkatersShopsShares1764650100000,
   CreateBladeRecords1764660000000,
   CreateTargetSettings1764670000000,
+  CreateBladeBaselines1764670100000,
 ]

@@ -8,6 +8,7 @@ import { bladeRoutes } from './blade.routes'
 import { cardRoutes } from './card.routes'
 import { devRoutes } from './dev.routes'
 import { healthRoutes } from './health.routes'
+import { historyRoutes } from './history.routes'
 import { shareRoutes } from './share.routes'
 import { shopRoutes } from './shop.routes'
 import { skaterRoutes } from './skater.routes'
@@ -21,7 +22,7 @@ export function apiRoutes(ctx: AppContext): Router {
   api.use(healthRoutes(ctx))
   api.use(authRoutes(ctx), skaterRoutes(ctx), shareRoutes(ctx), shopRoutes(ctx), adminRoutes(ctx))
   api.use(cardRoutes(ctx), bladeRoutes(ctx))
-  api.use(targetRoutes(ctx))
+  api.use(targetRoutes(ctx), historyRoutes(ctx))
   const dev = devRoutes(ctx)
   if (dev) api.use(dev)
   return api

@@ -1,43 +1,10 @@
 import { describe, expect, it } from 'vitest'
-import { bladeModel, type BladeModelOptions } from '../../../shared/geometry/blade-model'
-import { bladeToCard } from '../../../shared/geometry/frames'
-import { applySimilarity, type Similarity } from '../../../shared/geometry/registration'
+import type { Similarity } from '../../../shared/geometry/registration'
 import type { Vec2 } from '../../../shared/geometry/vec'
-import type { AnalysisResult } from '../../../shared/schemas/analysis'
 import { compareAnalyses, metricChanges } from '../../../shared/compare/analyses'
-import { withNoise } from '../geometry/helpers'
+import { resultOf } from '../../factories/analysis-results'
 
-interface Build {
-  model?: BladeModelOptions
-  /** Steel ground off the rocker (everything 6 mm or more behind B), mm; the teeth are left alone. */
-  removedMm?: number
-  /** Where the photo put the blade: a rigid motion of the whole card-frame result. */
-  placement?: Similarity
-  noiseMm?: number
-  seed?: number
-}
-
-/** A stored analysis result of a generated blade, with the fields a comparison reads. */
-function analysisOf(o: Build = {}): AnalysisResult {
-  const m = bladeModel(o.model ?? { sizeIn: 10 })
-  const d = o.removedMm ?? 0
-  const move = (q: Vec2) => applySimilarity(o.placement ?? { scale: 1, rotationRad: 0, tx: 0, ty: 0 }, bladeToCard(m.frame, q))
-  const raised = m.bladeMm.map((q): Vec2 => (q[0] > 6 ? [q[0], q[1] + d] : q))
-  const edge = withNoise(raised.map(move), o.noiseMm ?? 0, o.seed ?? 1)
-  const tp = m.truth.touchPointMm
-  // After grinding, the support line from B meets the raised rocker a little further back: T moves, B does not.
-  const t: Vec2 = [tp + Math.sqrt(2 * 2000 * d), d]
-  const landmark = (q: Vec2) => ({ alongMm: q[0], cardMm: move(q) })
-  return {
-    touchPointMm: t[0], heelLiftMm: m.truth.heelLiftMm - d, heelLiftStationMm: null, heelLiftExtrapolated: false,
-    contactLengthMm: 3.5, bladeLengthMm: m.truth.lengthMm,
-    uncertainty: { touchPointMm: 1.2, heelLiftMm: 0.3, heelLiftStationMm: null, contactLengthMm: 0.2, radiusRelative: 0.03 },
-    radiusProfile: [{ alongMm: m.truth.rockerStartAlongMm + 20, curvaturePerMm: 1 / 1500, radiusMm: 1500 }],
-    sectionRadii: { toeMm: 1500, middleMm: 2200, heelMm: 1900 },
-    landmarks: { basePick: landmark([0, 0]), touchPoint: landmark(t), heelEnd: landmark(m.truth.heelEnd) },
-    edge: { cardMm: edge, homography: [[1, 0, 0], [0, 1, 0], [0, 0, 1]] },
-  } as unknown as AnalysisResult
-}
+const analysisOf = resultOf
 
 const photo2: Similarity = { scale: 1, rotationRad: (2 * Math.PI) / 180, tx: 15, ty: -4 }
 
