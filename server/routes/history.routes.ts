@@ -10,6 +10,7 @@ import {
   clearBaseline, compareTwo, comparePair, compareSharpening, compareWithBaseline, markBaseline,
 } from '../services/comparison.service'
 import { bladeHistory } from '../services/history.service'
+import { analysisReport, bladeReport } from '../services/report.service'
 import { historyCsv, markBaselineSchema, type HistoryRow } from '../../shared/schemas/history'
 
 const bladeParams = z.object({ bladeId: z.uuid() })
@@ -21,7 +22,7 @@ function sendCsv(res: Response, name: string, rows: HistoryRow[]) {
   res.type('text/csv; charset=utf-8').attachment(`${name}.csv`).send(historyCsv(rows))
 }
 
-/** A blade's history and wear, its baseline, CSV exports, and comparisons of two analyses. */
+/** A blade's history and wear, its baseline, CSV and PDF exports, and comparisons of two analyses. */
 export function historyRoutes(ctx: AppContext): Router {
   const r = Router()
   const p = (req: { params: unknown }) => req.params as Record<string, string>
@@ -63,6 +64,15 @@ export function historyRoutes(ctx: AppContext): Router {
   })
   r.get('/analyses/:id/compare/:otherId', requireAuth, validate({ params: twoParams }), async (req, res) => {
     res.json(await compareTwo(ctx, signedIn(req), p(req).id, p(req).otherId))
+  })
+
+  r.get('/analyses/:id/report.pdf', requireAuth, validate({ params: idParams }), async (req, res) => {
+    const pdf = await analysisReport(ctx, signedIn(req), p(req).id)
+    res.type('application/pdf').attachment(`analysis-${p(req).id.slice(0, 8)}.pdf`).send(pdf)
+  })
+  r.get('/blades/:bladeId/report.pdf', requireAuth, validate({ params: bladeParams }), async (req, res) => {
+    const pdf = await bladeReport(ctx, signedIn(req), p(req).bladeId)
+    res.type('application/pdf').attachment(`blade-${p(req).bladeId.slice(0, 8)}.pdf`).send(pdf)
   })
   return r
 }
