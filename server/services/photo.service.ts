@@ -37,7 +37,8 @@ async function sniff(buffer: Buffer): Promise<{ format: Format; width: number; h
   const meta = await sharp(buffer, { limitInputPixels: false }).metadata().catch(() => {
     throw new UnsupportedMediaError(UNREADABLE_MESSAGE)
   })
-  if (meta.format === 'heif') throw new UnsupportedMediaError(HEIC_MESSAGE)
+  // HEIF holds both HEIC (HEVC, the iPhone default) and AVIF; only the first gets the iPhone advice.
+  if (meta.format === 'heif' && meta.compression !== 'av1') throw new UnsupportedMediaError(HEIC_MESSAGE)
   if (!meta.format || !(meta.format in FORMATS) || !meta.width || !meta.height) throw new UnsupportedMediaError(UNREADABLE_MESSAGE)
   if (meta.width * meta.height > MAX_PIXELS) {
     const mp = ((meta.width * meta.height) / 1e6).toFixed(0)
