@@ -1,6 +1,7 @@
 import type { AlgebraicCircle, Circle } from './circle-fit'
-import { prattAlgebraic, toCircle } from './circle-fit'
+import { algebraicDistance, prattAlgebraic, toCircle } from './circle-fit'
 import type { Vec2 } from './vec'
+import { median } from './vec'
 import { solve } from './linalg'
 
 /** Result of the geometric (orthogonal-distance) circle fit; lengths in the input frame's units (mm). */
@@ -144,4 +145,24 @@ function finish(p: Params, s: number, mean: Vec2, cost: number, n: number, itera
 export function signedCurvature(u: AlgebraicCircle): number {
   // Centre y − mean y = −C / 2A, so the sign of the curvature is that of −A·C.
   return u.c === 0 ? 2 * Math.abs(u.a) : -2 * u.a * Math.sign(u.c)
+}
+
+/**
+ * Geometric fit that sets aside gross outliers — specks, reflections, a few mis-traced points — before the final
+ * fit: points farther than `cutoff` robust σ (1.4826 × median |residual|) from the circle are dropped and the rest
+ * refitted, up to `rounds` times. The floor keeps a noise-free edge from losing points to rounding. Returns the
+ * fit and how many points it kept.
+ */
+export function trimmedGeometricFit(points: readonly Vec2[], cutoff = 4, rounds = 2, floorMm = 1e-4): GeometricFit & { kept: number } {
+  let pts = points
+  let fit = geometricFit(pts)
+  for (let round = 0; round < rounds; round++) {
+    const res = pts.map((p) => Math.abs(algebraicDistance(fit.algebraic, p)))
+    const sigma = 1.4826 * median(res)
+    const keep = pts.filter((_, i) => res[i] <= Math.max(cutoff * sigma, floorMm))
+    if (keep.length === pts.length || keep.length < Math.max(10, pts.length / 2)) break
+    pts = keep
+    fit = geometricFit(pts, fit.algebraic)
+  }
+  return { ...fit, kept: pts.length }
 }

@@ -1,6 +1,6 @@
 import type { AlgebraicCircle } from './circle-fit'
 import type { GeometricFit } from './circle-geometric'
-import { geometricFit } from './circle-geometric'
+import { trimmedGeometricFit } from './circle-geometric'
 import type { Vec2 } from './vec'
 import { degToRad, lerp } from './vec'
 
@@ -155,6 +155,6 @@ export interface StationExtrapolation {
 export function extrapolateStationLift(pts: readonly Vec2[], rockerEndX: number, stationX: number): StationExtrapolation {
   const from = rockerEndX - STATION_FIT_LENGTH_MM
   const window = pts.filter((p) => p[0] >= from && p[0] <= rockerEndX)
-  const fit = geometricFit(window)
+  const fit = trimmedGeometricFit(window)
   return { liftMm: lowerArcY(fit.algebraic, stationX), fit, fromAlongMm: from, toAlongMm: rockerEndX, count: window.length }
 }

@@ -1,4 +1,4 @@
-import { geometricFit, signedCurvature } from './circle-geometric'
+import { signedCurvature, trimmedGeometricFit } from './circle-geometric'
 import type { Vec2 } from './vec'
 
 /** Window of each radius-profile fit and its step (mm), per DESIGN §4.6. */
@@ -37,14 +37,14 @@ export function slice(rocker: readonly Vec2[], from: number, to: number): Vec2[]
 export function fitWindow(rocker: readonly Vec2[], from: number, to: number): WindowFit | null {
   const pts = slice(rocker, from, to)
   if (pts.length < 10) return null
-  const fit = geometricFit(pts)
+  const fit = trimmedGeometricFit(pts)
   const k = signedCurvature(fit.algebraic)
   return {
     alongMm: (from + to) / 2,
     curvaturePerMm: k,
     radiusMm: Math.abs(k) < STRAIGHT_CURVATURE ? null : 1 / Math.abs(k),
     rmsMm: fit.rms,
-    count: pts.length,
+    count: fit.kept,
   }
 }
 

@@ -1,6 +1,6 @@
 import type { Circle } from './circle-fit'
 import type { GeometricFit } from './circle-geometric'
-import { geometricFit } from './circle-geometric'
+import { trimmedGeometricFit } from './circle-geometric'
 import { lowerHull } from './hull'
 import { ProfileError } from './profile-error'
 import type { Vec2 } from './vec'
@@ -89,7 +89,7 @@ export function refineTouchPoint(work: readonly Vec2[], fromIndex: number, b: Ve
       if (along >= lo && along <= at + TOUCH_HALF_WINDOW_MM && dot(v, up) < 1.5) window.push(work[i])
     }
     if (window.length < 10) return result
-    const fit = geometricFit(window)
+    const fit = trimmedGeometricFit(window)
     const tangent = fit.circle.cy > touch[1] ? lowerTangentPoint(b, fit.circle) : null
     if (!tangent) return { touch, fit, windowCount: window.length }
     touch = tangent

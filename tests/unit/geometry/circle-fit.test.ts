@@ -9,7 +9,7 @@ import {
   taubinFit,
   unitNormAlgebraicFit,
 } from '../../../shared/geometry/circle-fit'
-import { geometricFit, signedCurvature } from '../../../shared/geometry/circle-geometric'
+import { geometricFit, signedCurvature, trimmedGeometricFit } from '../../../shared/geometry/circle-geometric'
 import type { Vec2 } from '../../../shared/geometry/vec'
 
 // Worked example of Gander, Golub & Strebel, "Least-squares fitting of circles and ellipses", BIT 34 (1994) 558–578.
@@ -112,5 +112,18 @@ describe('geometric circle fit', () => {
     for (let t = -0.3; t <= 0.3; t += 0.003) arc.push([50 * Math.sin(t) + rnd() * 0.2, 50 - 50 * Math.cos(t) + rnd() * 0.2])
     expect(Math.abs(geometricFit(arc).circle.r - 50)).toBeLessThan(1.5)
     expect(kasaFit(arc).r).toBeLessThan(geometricFit(arc).circle.r)
+  })
+
+  it('sets a speck in the trace aside in the trimmed fit', () => {
+    let seed = 11
+    const rnd = () => ((seed = (seed * 16807) % 2147483647) / 2147483647) - 0.5
+    const arc: Vec2[] = []
+    for (let x = -20; x <= 20; x += 0.1) arc.push([x, 2000 - Math.sqrt(2000 ** 2 - x * x) + rnd() * 0.03])
+    const specked = arc.map((p, i): Vec2 => (i > 250 && i < 262 ? [p[0], p[1] + 0.8] : p))
+    expect(Math.abs(geometricFit(specked).circle.r / 2000 - 1)).toBeGreaterThan(0.2)
+    const trimmed = trimmedGeometricFit(specked)
+    expect(trimmed.kept).toBeLessThanOrEqual(arc.length - 11)
+    expect(Math.abs(trimmed.circle.r / 2000 - 1)).toBeLessThan(0.05)
+    expect(trimmedGeometricFit(arc).kept).toBeGreaterThan(arc.length - 3)
   })
 })

@@ -69,7 +69,7 @@ describe('uncertainty propagation', () => {
     expect(std(lifts) / predicted).toBeLessThan(1.25)
   })
 
-  it('reports ± as twice the standard uncertainty', () => {
-    expect(COVERAGE_K).toBe(2)
+  it('reports ± as 2.5 standard uncertainties', () => {
+    expect(COVERAGE_K).toBe(2.5)
   })
 })
