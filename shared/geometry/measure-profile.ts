@@ -35,6 +35,8 @@ export interface ProfileInput {
 
 /** Heel station: nominal length − 45 mm behind B (our convention, DESIGN §4.4). */
 export const HEEL_STATION_OFFSET_MM = 45
+/** An edge spanning less than this fraction of the nominal length is not a blade's bottom edge. */
+export const MIN_TRACED_FRACTION = 0.5
 /** Measured vs nominal length mismatch that is flagged (DESIGN §3). */
 export const LENGTH_TOLERANCE = 0.03
 
@@ -66,6 +68,13 @@ function locate(input: ProfileInput): Located {
   if (input.edgeMm.length < 100)
     throw new ProfileError('BLADE_NOT_FOUND', 'Too little of the blade\u2019s bottom edge was traced to measure it.')
   const { work, card } = orderedWork(input.edgeMm, input.toe)
+  const extent = work[work.length - 1][0] - work[0][0]
+  const nominal = input.sizeIn * MM_PER_INCH
+  if (extent < MIN_TRACED_FRACTION * nominal)
+    throw new ProfileError(
+      'BLADE_NOT_FOUND',
+      `Only about ${Math.round(extent)} mm of the blade\u2019s bottom edge was traced; a ${input.sizeIn} in blade is about ${Math.round(nominal)} mm long.`,
+    )
   let support = detectSupport(work, input.toe)
   let blade = card.map((p) => cardToBlade(support.frame, p))
   const o = input.overrides

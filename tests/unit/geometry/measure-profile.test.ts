@@ -194,6 +194,7 @@ describe('measureProfile refusals and warnings', () => {
       return 'none'
     }
     expect(code(m.edgeMm.slice(0, 50))).toBe('BLADE_NOT_FOUND')
+    expect(code(m.edgeMm.filter((_, i) => m.bladeMm[i][0] < 100))).toBe('BLADE_NOT_FOUND')
     expect(code(m.edgeMm.filter((_, i) => m.bladeMm[i][0] > 8))).toBe('BLADE_CUT_OFF')
     expect(code(m.edgeMm.filter((_, i) => m.bladeMm[i][0] < 200))).toBe('BLADE_CUT_OFF')
     expect(code(m.edgeMm.map((p, i) => (i === 500 ? [NaN, p[1]] : p)))).toBe('BLADE_NOT_FOUND')
