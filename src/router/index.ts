@@ -31,6 +31,7 @@ const routes: RouteRecordRaw[] = [
   { path: '/blades/:bladeId', name: 'blade', component: () => import('../views/BladeView.vue'), props: true, meta: { title: 'Blade', requiresAuth: true } },
   { path: '/blades/:bladeId/capture', name: 'capture', component: () => import('../views/CaptureView.vue'), props: true, meta: { title: 'Capture', requiresAuth: true } },
   { path: '/analyses/:id', name: 'analysis', component: () => import('../views/AnalysisView.vue'), props: true, meta: { title: 'Analysis', requiresAuth: true } },
+  { path: '/compare', name: 'compare', component: () => import('../views/CompareView.vue'), meta: { title: 'Compare', requiresAuth: true } },
   { path: '/hollow', name: 'hollow', component: () => import('../views/HollowView.vue'), meta: { title: 'Hollow' } },
   { path: '/mailbox', name: 'mailbox', component: () => import('../views/MailboxView.vue'), meta: { title: 'Mailbox' } },
   { path: '/forbidden', name: 'forbidden', component: () => import('../views/ForbiddenView.vue'), meta: { title: 'No access' } },
