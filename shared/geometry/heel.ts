@@ -66,17 +66,6 @@ export function findHeelEnd(pts: readonly Vec2[], ang: Float64Array, fromIndex: 
   return null
 }
 
-/**
- * Rocker start S: walking from T toward the toe, the first point where the edge turns more than thresholdDeg away
- * from L — the rear face of the base pick's notch, where the rocker leaves the pick gap. Null if none.
- */
-export function findRockerStart(pts: readonly Vec2[], ang: Float64Array, fromIndex: number, thresholdDeg = 45): EdgeMark | null {
-  const th = degToRad(thresholdDeg)
-  for (let i = fromIndex - 1; i >= 0; i--)
-    if (Math.abs(ang[i]) > th) return { point: crossing(pts, ang, i + 1, i, th), index: i + 1 }
-  return null
-}
-
 /** Index of the point about offsetMm of arc length from i (negative: toward the toe), clamped to the edge. */
 function stepAlong(pts: readonly Vec2[], i: number, offsetMm: number): number {
   const dir = Math.sign(offsetMm)

@@ -4,7 +4,7 @@ import { findFlatSpots, findKinks } from './defects'
 import type { BladeFrame, ToeSide } from './frames'
 import { bladeToCard, cardToBlade } from './frames'
 import type { EdgeMark } from './heel'
-import { directionAngles, extrapolateStationLift, findHeelEnd, findRockerStart, rockerEndIndex, rockerStartIndex } from './heel'
+import { directionAngles, extrapolateStationLift, findHeelEnd, rockerEndIndex, rockerStartIndex } from './heel'
 import { MM_PER_INCH } from './hollow'
 import type { Support } from './landmarks'
 import { detectSupport, orderedWork, overrideBasePick } from './landmarks'
@@ -13,7 +13,7 @@ import type { WindowFit } from './radius-profile'
 import { PROFILE_STEP_MM, STRAIGHT_CURVATURE, radiusProfile, sectionRadii } from './radius-profile'
 import { measureUncertainty } from './profile-uncertainty'
 import type { Vec2 } from './vec'
-import { median, radToDeg } from './vec'
+import { lerp, median, radToDeg } from './vec'
 
 export type Discipline = 'freestyle' | 'dance' | 'pairs' | 'synchro'
 
@@ -68,7 +68,7 @@ function locate(input: ProfileInput): Located {
   if (input.edgeMm.length < 100)
     throw new ProfileError('BLADE_NOT_FOUND', 'Too little of the blade\u2019s bottom edge was traced to measure it.')
   const { work, card } = orderedWork(input.edgeMm, input.toe)
-  const extent = work[work.length - 1][0] - work[0][0]
+  const extent = Math.max(...work.map((p) => p[0])) - Math.min(...work.map((p) => p[0]))
   const nominal = input.sizeIn * MM_PER_INCH
   if (extent < MIN_TRACED_FRACTION * nominal)
     throw new ProfileError(
@@ -80,22 +80,29 @@ function locate(input: ProfileInput): Located {
   const o = input.overrides
   if (o?.basePickAlongMm !== undefined) {
     const tIndex = blade.findIndex((p, i) => i > support.basePickIndex && p[0] >= support.touchPointMm)
-    const start = findRockerStart(blade, directionAngles(blade), tIndex)
-    support = overrideBasePick(work, input.toe, support, blade, o.basePickAlongMm, start ? start.index : tIndex)
+    const start = rockerStartIndex(blade, directionAngles(blade), tIndex)
+    support = overrideBasePick(work, input.toe, support, blade, o.basePickAlongMm, start)
     blade = card.map((p) => cardToBlade(support.frame, p))
   }
   const touchIndex = Math.max(blade.findIndex((p, i) => i > support.basePickIndex && p[0] >= support.touchPointMm), 1)
   const angles = directionAngles(blade)
-  const heel = o?.heelEndAlongMm !== undefined ? nearestBehind(blade, touchIndex, o.heelEndAlongMm) : findHeelEnd(blade, angles, touchIndex)
+  const heel = o?.heelEndAlongMm !== undefined ? firstReaching(blade, touchIndex, o.heelEndAlongMm) : findHeelEnd(blade, angles, touchIndex)
   if (!heel) throw new ProfileError('BLADE_CUT_OFF', 'The heel end is not in the traced edge.')
   return { support, blade, card, touchIndex, heel, angles }
 }
 
-/** The edge point behind T nearest to alongMm: where a person put E. */
-function nearestBehind(blade: readonly Vec2[], from: number, alongMm: number): EdgeMark {
-  let best = from
-  for (let i = from; i < blade.length; i++) if (Math.abs(blade[i][0] - alongMm) < Math.abs(blade[best][0] - alongMm)) best = i
-  return { point: blade[best], index: best }
+/**
+ * Where a person put E: the first place behind T where the edge reaches alongMm, interpolated between points.
+ * Walking from T, that is the running surface or the start of the heel corner, never higher up the heel face.
+ */
+function firstReaching(blade: readonly Vec2[], from: number, alongMm: number): EdgeMark {
+  for (let i = Math.max(from, 1); i < blade.length; i++)
+    if (blade[i][0] >= alongMm) {
+      const [a, b] = [blade[i - 1], blade[i]]
+      const t = b[0] === a[0] ? 0 : Math.min(Math.max((alongMm - a[0]) / (b[0] - a[0]), 0), 1)
+      return { point: lerp(a, b, t), index: i }
+    }
+  return { point: blade[blade.length - 1], index: blade.length - 1 }
 }
 
 /**
