@@ -2,10 +2,12 @@ import type { Cv } from './opencv'
 import type { GreyImage } from './image'
 import type { Calibration } from './calibrate'
 import { offsetPlaneHomography } from './camera'
-import { localScale, rectify, stripToCard, type Strip } from './rectify'
+import { BEHIND_TABLE, localScale, rectify, stripToCard, type Strip } from './rectify'
 import { segmentBlade, type Silhouette } from './segment'
-import { lowerPath, refineAlongNormals, smoothResample, type EdgeSample } from './trace'
+import type { CardShade } from './shade'
+import { lowerPath, refineAlongNormals, smoothResample, trimExcursions, type EdgeSample } from './trace'
 import { EngineRefusal } from './errors'
+import { dropOutliers, dropStrayRuns, sharpenCorners, startAtFirstTip } from './clean'
 import type { Mat3, Pt } from './projective'
 
 /** Where on the card the blade's silhouette is searched (card mm) and the card's table line. */
@@ -33,7 +35,7 @@ export interface BladeEdge {
   pxPerMm: number
 }
 
-const MARGIN_BELOW_TABLE_MM = 4
+const MARGIN_BELOW_TABLE_MM = 6
 
 function median(values: number[]): number {
   const s = [...values].sort((a, b) => a - b)
@@ -55,38 +57,44 @@ function edgeScatterMm(edge: Pt[]): number {
   return (1.4826 * median(r)) / 1.22
 }
 
-/** Area between the edge and its lower convex hull over one end quarter: the toe picks leave gaps, the heel none. */
-function hullGapArea(edge: Pt[], fromLeft: boolean): number {
+/**
+ * Number of teeth near one end of the edge: local lowest points (card y down, so local maxima of y) standing out by
+ * at least `prominenceMm` on both sides, within `reachMm` of that end and within `lowMm` of the edge's lowest point.
+ * The toe picks give several; the heel, which only curves up, none.
+ */
+function teethNear(edge: Pt[], fromLeft: boolean, reachMm: number, lowMm: number, prominenceMm: number): number {
   const xs = edge.map((p) => p[0])
-  const minX = Math.min(...xs)
-  const maxX = Math.max(...xs)
-  const limit = fromLeft ? minX + 0.25 * (maxX - minX) : maxX - 0.25 * (maxX - minX)
-  const part = edge.filter((p) => (fromLeft ? p[0] <= limit : p[0] >= limit)).sort((a, b) => a[0] - b[0])
-  // Lower hull in card mm (y down): the hull runs along the largest y.
-  const hull: Pt[] = []
-  for (const p of part) {
-    while (hull.length >= 2) {
-      const [a, b] = [hull[hull.length - 2], hull[hull.length - 1]]
-      if ((b[0] - a[0]) * (p[1] - a[1]) - (b[1] - a[1]) * (p[0] - a[0]) >= 0) hull.pop()
-      else break
+  const end = fromLeft ? Math.min(...xs) : Math.max(...xs)
+  const bottom = Math.max(...edge.map((p) => p[1]))
+  const part = edge.filter((p) => Math.abs(p[0] - end) <= reachMm && bottom - p[1] <= lowMm)
+  // Zigzag with hysteresis: a tip counts when the edge, having come down to it, rises again by the prominence.
+  let count = 0
+  let falling = true
+  let extreme = part.length ? part[0][1] : 0
+  for (const [, y] of part) {
+    if (falling) {
+      if (y > extreme) extreme = y
+      else if (extreme - y >= prominenceMm) {
+        count++
+        falling = false
+        extreme = y
+      }
+    } else if (y < extreme) extreme = y
+    else if (y - extreme >= prominenceMm) {
+      falling = true
+      extreme = y
     }
-    hull.push(p)
   }
-  let area = 0
-  for (let i = 1; i < part.length; i++) {
-    const x = part[i][0]
-    let k = 1
-    while (k < hull.length - 1 && hull[k][0] < x) k++
-    const [a, b] = [hull[k - 1], hull[k]]
-    const hy = b[0] === a[0] ? a[1] : a[1] + ((b[1] - a[1]) * (x - a[0])) / (b[0] - a[0])
-    area += Math.max(0, hy - part[i][1]) * (part[i][0] - part[i - 1][0])
-  }
-  return area
+  return count
 }
 
-function checkCutOff(sil: Silhouette, path: Pt[], strip: Strip): void {
-  if (sil.touchesLeft || sil.touchesRight) throw new EngineRefusal('BLADE_CUT_OFF', 'silhouette reaches the zone end')
+/** Refuses when the traced edge reaches an end of the strip (the blade zone's end) or the photo's border. */
+function checkCutOff(path: Pt[], strip: Strip): void {
   const w = strip.img.width
+  const margin = 2
+  const ends = [path[0], path[path.length - 1]]
+  if (ends.some(([u]) => u <= margin || u >= w - 1 - margin))
+    throw new EngineRefusal('BLADE_CUT_OFF', 'edge reaches the end of the blade zone')
   for (const [u, v] of path) {
     for (const [du, dv] of [[-2, 0], [2, 0], [0, 2], [0, -2]]) {
       const uu = u + du
@@ -97,36 +105,65 @@ function checkCutOff(sil: Silhouette, path: Pt[], strip: Strip): void {
   }
 }
 
+/** Toe-pick teeth lie within this arc length of the edge's toe end, mm; their corners are restored there. */
+const TOE_PICK_ZONE_MM = 45
+/** Corner faces are fitted from this far from a corner (past its blur) to this far (within one tooth face), mm. */
+const CORNER_GAP_MM = 0.35
+const CORNER_REACH_MM = 1.4
+
+/** How far the edge search reaches into the steel and out of it, mm: past the widest shadow the runner casts. */
+const SEARCH_INSIDE_MM = 6
+const SEARCH_OUTSIDE_MM = 1.5
+
 function traceSamples(strip: Strip, sil: Silhouette): EdgeSample[] {
   const r = strip.pxPerMm
-  const path = lowerPath(sil.outline).filter(([, v]) => v > 1.5 * r)
-  checkCutOff(sil, path, strip)
+  const ratio = sil.steelRatio
+  const path = trimExcursions(lowerPath(sil.outline), r).filter(([, v]) => v > 1.5 * r)
+  if (path.length < 20) throw new EngineRefusal('BLADE_NOT_FOUND', 'no lower outline')
+  checkCutOff(path, strip)
   const coarse = smoothResample(path, Math.max(2, Math.round(0.6 * r)), 0.25 * r)
-  return refineAlongNormals(strip, coarse, sil, Math.max(3, 0.9 * r))
+  const w = strip.img.width
+  const samples = refineAlongNormals(strip, coarse, {
+    insidePx: SEARCH_INSIDE_MM * r, outsidePx: SEARCH_OUTSIDE_MM * r, darker: ratio < 1,
+    tableAt: (u, v) => strip.inside[Math.min(strip.inside.length - 1, Math.max(0, Math.round(v) * w + Math.round(u)))] === BEHIND_TABLE,
+    steelRatio: ratio,
+    shadeAt: (u, v) => strip.shade[Math.min(strip.shade.length - 1, Math.max(0, Math.round(v) * w + Math.round(u)))],
+  })
+  return sharpOnly(samples)
+}
+
+/** Drops edge points far softer than the rest: shadow outlines, which blur with their depth, are not the steel. */
+function sharpOnly(samples: EdgeSample[]): EdgeSample[] {
+  const typical = median(samples.map((s) => s.sigma))
+  return samples.filter((s) => s.sigma <= 2 * typical + 0.5)
 }
 
 /**
  * Finds the runner in the card's blade zone and traces its bottom edge with sub-pixel accuracy, on the plane
  * `offsetMm` in front of the card (where the runner's near face stands).
  */
-export function traceBlade(cv: Cv, img: GreyImage, cal: Calibration, zone: BladeZone, offsetMm: number): BladeEdge {
+export function traceBlade(cv: Cv, img: GreyImage, cal: Calibration, zone: BladeZone, offsetMm: number, shade: CardShade): BladeEdge {
   const planeHomography = offsetPlaneHomography(cal.pose, cal.distortion, -offsetMm)
   const centre: Pt = [(zone.x0 + zone.x1) / 2, zone.tableY - 20]
   const photoPxPerMm = localScale(planeHomography, centre)
   const pxPerMm = Math.min(14, Math.max(4, photoPxPerMm))
   const y1 = zone.tableY + MARGIN_BELOW_TABLE_MM
-  const strip = rectify(cv, img, planeHomography, cal.distortion, { x0: zone.x0, x1: zone.x1, y0: zone.top, y1, pxPerMm })
+  const strip = rectify(cv, img, planeHomography, cal.distortion, shade, {
+    x0: zone.x0, x1: zone.x1, y0: zone.top, y1, pxPerMm, cardHomography: cal.homography, tableY: zone.tableY,
+  })
   const tableV = (zone.tableY - zone.top) * pxPerMm
   const sil = segmentBlade(cv, strip, tableV)
-  if (!sil || Math.abs(sil.steelLevel - sil.cardLevel) < 12) throw new EngineRefusal('BLADE_NOT_FOUND')
+  if (!sil) throw new EngineRefusal('BLADE_NOT_FOUND', 'no runner stands out from the card')
   const samples = traceSamples(strip, sil)
   const xs = samples.map((s) => s.p[0] / pxPerMm)
-  if (samples.length < 100 || Math.max(...xs) - Math.min(...xs) < 150) throw new EngineRefusal('BLADE_NOT_FOUND')
-  const edge = samples.map((s) => stripToCard(strip, s.p[0], s.p[1]))
-  const toe = hullGapArea(edge, true) >= hullGapArea(edge, false) ? 'left' : 'right'
+  if (samples.length < 100 || Math.max(...xs) - Math.min(...xs) < 150) throw new EngineRefusal('BLADE_NOT_FOUND', 'edge too short')
+  const traced = dropStrayRuns(dropOutliers(samples.map((s) => stripToCard(strip, s.p[0], s.p[1])), 0.5, 0.03), 0.8, 12)
+  const toe = teethNear(traced, true, 45, 25, 0.5) >= teethNear(traced, false, 45, 25, 0.5) ? 'left' : 'right'
+  const ordered = toe === 'left' ? traced : traced.reverse()
+  const edge = sharpenCorners(startAtFirstTip(ordered, 0.5, TOE_PICK_ZONE_MM), TOE_PICK_ZONE_MM, CORNER_GAP_MM, CORNER_REACH_MM)
   const blurMm = median(samples.map((s) => s.sigma)) / pxPerMm
   return {
-    edgeMm: toe === 'left' ? edge : edge.reverse(),
+    edgeMm: edge,
     toe, planeHomography, blurMm, blurPx: blurMm * photoPxPerMm, edgeSigmaMm: edgeScatterMm(edge),
     coverage: samples.length / Math.max(1, Math.round(pathLengthMm(edge) / 0.25)),
     darkerSteel: sil.darker, pxPerMm,

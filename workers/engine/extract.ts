@@ -4,6 +4,7 @@ import { decodeGrey, type GreyImage } from './image'
 import { DETECT_MAX_SIDE, reduce, toMat } from './markers'
 import { calibrate, type CardMarkers, type Calibration } from './calibrate'
 import { traceBlade, type BladeEdge } from './blade'
+import { fitCardShade } from './shade'
 import { distort } from './camera'
 import { fitHomography } from './homography'
 import { apply, type Mat3, type Pt } from './projective'
@@ -69,7 +70,8 @@ async function locate(img: GreyImage, layouts: CardLayout[], printScale: number)
       x0: z.xMm * printScale, x1: (z.xMm + z.widthMm) * printScale,
       top: z.yMm * printScale, tableY: layout.heightMm * printScale,
     }
-    const edge = traceBlade(cv, img, calibration, zone, RUNNER_OFFSET_MM)
+    const shade = fitCardShade(img, calibration, scaledMarkers(layout, printScale))
+    const edge = traceBlade(cv, img, calibration, zone, RUNNER_OFFSET_MM, shade)
     return { calibration, layout, edge }
   })
 }

@@ -1,17 +1,21 @@
 import type { Cv } from './opencv'
 import { withMats } from './opencv'
 import type { GreyImage } from './image'
-import { apply, type Mat3, type Pt } from './projective'
+import { apply, invert, type Mat3, type Pt } from './projective'
 import { distort, type Distortion } from './camera'
+import type { CardShade } from './shade'
 
 /**
  * A rectified view of a rectangle of the runner's plane: pixel (u, v) shows card-frame point
  * (x0 + u / pxPerMm, y0 + v / pxPerMm), resampled from the photo through the offset-plane homography and the lens
- * model. `inside` marks pixels whose source lies inside the photo.
+ * model. `inside` is 0 where the source falls outside the photo, 1 where the ray would meet the card behind the
+ * runner, and 2 where it passes below the card's bottom edge onto the table.
  */
 export interface Strip {
   img: GreyImage
   inside: Uint8Array
+  /** Expected brightness of blank card at each pixel (the card's shading carried into the strip). */
+  shade: Float32Array
   x0: number
   y0: number
   pxPerMm: number
@@ -39,13 +43,21 @@ export interface StripRequest {
   x1: number
   y1: number
   pxPerMm: number
+  /** Card plane (z = 0) mm → undistorted px, and the card's bottom edge (the table line), card mm. */
+  cardHomography: Mat3
+  tableY: number
 }
 
+export const BEHIND_CARD = 1
+export const BEHIND_TABLE = 2
+
 /** Resamples the photo onto a rectangle of the plane `hPlane` (card mm → undistorted px) describes. */
-export function rectify(cv: Cv, photo: GreyImage, hPlane: Mat3, d: Distortion, req: StripRequest): Strip {
+export function rectify(cv: Cv, photo: GreyImage, hPlane: Mat3, d: Distortion, shadeAt: CardShade, req: StripRequest): Strip {
   const w = Math.max(2, Math.round((req.x1 - req.x0) * req.pxPerMm))
   const h = Math.max(2, Math.round((req.y1 - req.y0) * req.pxPerMm))
   const inside = new Uint8Array(w * h)
+  const shade = new Float32Array(w * h)
+  const toCard = invert(req.cardHomography)
   const out = withMats((track) => {
     const src = track(new cv.Mat(photo.height, photo.width, cv.CV_8UC1))
     src.data.set(photo.data)
@@ -55,16 +67,19 @@ export function rectify(cv: Cv, photo: GreyImage, hPlane: Mat3, d: Distortion, r
     const my = mapY.data32F as Float32Array
     for (let v = 0; v < h; v++) {
       for (let u = 0; u < w; u++) {
-        const q = distort(d, apply(hPlane, [req.x0 + u / req.pxPerMm, req.y0 + v / req.pxPerMm]))
+        const und = apply(hPlane, [req.x0 + u / req.pxPerMm, req.y0 + v / req.pxPerMm])
+        const q = distort(d, und)
         const i = v * w + u
         mx[i] = q[0]
         my[i] = q[1]
-        inside[i] = q[0] >= 1 && q[1] >= 1 && q[0] <= photo.width - 2 && q[1] <= photo.height - 2 ? 1 : 0
+        shade[i] = shadeAt(q[0], q[1])
+        const inPhoto = q[0] >= 1 && q[1] >= 1 && q[0] <= photo.width - 2 && q[1] <= photo.height - 2
+        inside[i] = !inPhoto ? 0 : apply(toCard, und)[1] > req.tableY ? BEHIND_TABLE : BEHIND_CARD
       }
     }
     const dst = track(new cv.Mat())
     cv.remap(src, dst, mapX, mapY, cv.INTER_LINEAR, cv.BORDER_REPLICATE)
     return new Uint8Array(dst.data)
   })
-  return { img: { data: out, width: w, height: h }, inside, x0: req.x0, y0: req.y0, pxPerMm: req.pxPerMm }
+  return { img: { data: out, width: w, height: h }, inside, shade, x0: req.x0, y0: req.y0, pxPerMm: req.pxPerMm }
 }

@@ -1,6 +1,5 @@
 import { gaussianPeak, sample } from './image'
 import type { Strip } from './rectify'
-import type { Silhouette } from './segment'
 
 type Pt = [number, number]
 
@@ -24,6 +23,34 @@ export function lowerPath(outline: Pt[]): Pt[] {
   const b = walk(right, left).reverse()
   const meanV = (p: Pt[]) => p.reduce((s, q) => s + q[1], 0) / p.length
   return meanV(a) >= meanV(b) ? a : b
+}
+
+/**
+ * Trims backward excursions at either end of a lower path: along the blade's bottom, x never falls back by more than
+ * `tolPx`, so where the outline first runs along a boot or a plate and then returns, the part before (or after) is
+ * not the runner's edge.
+ */
+export function trimExcursions(path: Pt[], tolPx: number): Pt[] {
+  const n = path.length
+  let start = 0
+  let suffixMin = Infinity
+  for (let k = n - 1; k >= 0; k--) {
+    if (k < n / 2 && path[k][0] > suffixMin + tolPx) {
+      start = k + 1
+      break
+    }
+    suffixMin = Math.min(suffixMin, path[k][0])
+  }
+  let end = n - 1
+  let prefixMax = -Infinity
+  for (let k = 0; k < n; k++) {
+    if (k > n / 2 && path[k][0] < prefixMax - tolPx) {
+      end = k - 1
+      break
+    }
+    prefixMax = Math.max(prefixMax, path[k][0])
+  }
+  return path.slice(start, end + 1)
 }
 
 /** Resamples a polyline at equal arc-length steps after a moving-average smoothing of `halfWindow` points. */
@@ -62,19 +89,73 @@ export interface EdgeSample {
   sigma: number
 }
 
+/** Options of the search across the edge: how far into the steel and out of it, px, and the steel's polarity. */
+export interface NormalSearch {
+  insidePx: number
+  outsidePx: number
+  darker: boolean
+  /** Where the table, not the card, lies behind the edge: the step may have either sign there. */
+  tableAt: (u: number, v: number) => boolean
+  /** Steel brightness over the card's. */
+  steelRatio: number
+  /** Expected brightness of blank card at a strip pixel, grey levels. */
+  shadeAt: (u: number, v: number) => number
+}
+
 /**
- * Refines each point of a coarse edge along its normal: samples the strip across the edge, differentiates, and fits
- * a parabola to the gradient peak of the steel-to-card step. Points with no clear peak in the window are dropped.
+ * Where, walking in from the coarse point at index k0, the steel ends again: the search must not reach across a thin
+ * tooth or a narrow gap to the next edge of the same polarity. Skips a shadow first, then spans the steel.
  */
-export function refineAlongNormals(strip: Strip, coarse: Pt[], sil: Silhouette, windowPx: number): EdgeSample[] {
-  // One-pixel steps: finer steps through a bilinear image only resolve its piecewise-linear facets.
-  const step = 1
-  const n = Math.round((2 * windowPx) / step) + 1
+function steelStart(profile: Float64Array, k0: number, mid: number, darker: boolean): number {
+  const steel = (v: number) => (darker ? v < mid : v > mid)
+  let k = k0
+  while (k > 0 && !steel(profile[k])) k--
+  while (k > 0 && steel(profile[k - 1])) k--
+  return k
+}
+
+/** Profile across the edge at one point, averaged over three parallel lines one pixel apart against noise. */
+function crossProfile(strip: Strip, p: Pt, n: Pt, from: number, out: Float64Array): void {
+  for (let k = 0; k < out.length; k++) {
+    const s = from + k
+    let sum = 0
+    for (const t of [-1, 0, 1]) sum += sample(strip.img, p[0] + n[0] * s - n[1] * t, p[1] + n[1] * s + n[0] * t)
+    // Past the strip's border, repeat the last value: a flat tail adds no gradient peak.
+    out[k] = Number.isFinite(sum) ? sum / 3 : k > 0 ? out[k - 1] : NaN
+  }
+}
+
+/**
+ * The innermost clear gradient peak of the steel's polarity: a shadow on the card makes a second, softer step of the
+ * same polarity farther out, so the first strong peak from the steel side is the steel's edge.
+ */
+function innermostPeak(grad: Float64Array, polarity: 1 | -1 | 0): { at: number; value: number } | null {
+  const signed = (k: number) => (polarity === 0 ? Math.abs(grad[k]) : polarity * grad[k])
+  let max = 0
+  for (let k = 1; k < grad.length - 1; k++) max = Math.max(max, signed(k))
+  if (!(max > 0)) return null
+  for (let k = 1; k < grad.length - 1; k++) {
+    const g = signed(k)
+    if (g >= 0.4 * max && g >= signed(k - 1) && g >= signed(k + 1)) {
+      const sign: 1 | -1 = grad[k] >= 0 ? 1 : -1
+      const local = gaussianPeak(grad.subarray(k - 1, k + 2), sign)
+      return local ? { at: k - 1 + local.at, value: local.value } : { at: k, value: grad[k] }
+    }
+  }
+  return null
+}
+
+/**
+ * Refines each point of a coarse edge along its outward normal: samples the strip across the edge, differentiates,
+ * and fits a Gaussian to the steel-to-card gradient peak. Points with no clear peak are dropped.
+ */
+export function refineAlongNormals(strip: Strip, coarse: Pt[], search: NormalSearch): EdgeSample[] {
+  const from = -Math.round(search.insidePx)
+  const n = Math.round(search.insidePx) + Math.round(search.outsidePx) + 1
   const profile = new Float64Array(n)
-  const grad = new Float64Array(n - 2)
-  const contrast = Math.abs(sil.cardLevel - sil.steelLevel)
-  // Walking outward from the steel, brightness rises if the steel is darker.
-  const sign: 1 | -1 = sil.darker ? 1 : -1
+  const grad = new Float64Array(n)
+  // Walking outward from the steel, brightness rises if the steel is darker than the card.
+  const sign: 1 | -1 = search.darker ? 1 : -1
   const out: EdgeSample[] = []
   for (let i = 0; i < coarse.length; i++) {
     const a = coarse[Math.max(0, i - 2)]
@@ -82,18 +163,21 @@ export function refineAlongNormals(strip: Strip, coarse: Pt[], sil: Silhouette, 
     const len = Math.hypot(b[0] - a[0], b[1] - a[1])
     if (len === 0) continue
     // The lower path runs left to right with the steel on its upper side, so (−ty, tx) points out of the steel.
-    const nx = -(b[1] - a[1]) / len
-    const ny = (b[0] - a[0]) / len
-    for (let k = 0; k < n; k++) {
-      const s = -windowPx + k * step
-      profile[k] = sample(strip.img, coarse[i][0] + nx * s, coarse[i][1] + ny * s)
-    }
-    for (let k = 1; k < n - 1; k++) grad[k - 1] = (profile[k + 1] - profile[k - 1]) / (2 * step)
-    const peak = gaussianPeak(grad, sign)
-    if (!peak || !Number.isFinite(peak.value) || sign * peak.value < 0.15 * contrast / windowPx) continue
-    const s = -windowPx + (peak.at + 1) * step
-    const strength = Math.abs(peak.value)
-    out.push({ p: [coarse[i][0] + nx * s, coarse[i][1] + ny * s], strength, sigma: contrast / (strength * Math.sqrt(2 * Math.PI)) })
+    const normal: Pt = [-(b[1] - a[1]) / len, (b[0] - a[0]) / len]
+    crossProfile(strip, coarse[i], normal, from, profile)
+    for (let k = 1; k < n - 1; k++) grad[k] = (profile[k + 1] - profile[k - 1]) / 2
+    grad[0] = 0
+    grad[n - 1] = 0
+    const onTable = search.tableAt(coarse[i][0] + normal[0] * search.outsidePx, coarse[i][1] + normal[1] * search.outsidePx)
+    const shade = search.shadeAt(coarse[i][0], coarse[i][1])
+    const step = Math.abs(search.steelRatio - 1) * shade
+    const k0 = steelStart(profile, -from, (shade * (1 + search.steelRatio)) / 2, search.darker)
+    const peak = innermostPeak(grad.subarray(k0), onTable ? 0 : sign)
+    if (peak) peak.at += k0
+    if (!peak || !Number.isFinite(peak.value) || Math.abs(peak.value) < 0.08 * step) continue
+    const s = from + peak.at
+    const p: Pt = [coarse[i][0] + normal[0] * s, coarse[i][1] + normal[1] * s]
+    out.push({ p, strength: Math.abs(peak.value), sigma: step / (Math.abs(peak.value) * Math.sqrt(2 * Math.PI)) })
   }
   return out
 }

@@ -40,7 +40,7 @@ describe('marker corners', () => {
         expect(Math.hypot(p[0] - truth[marker.id][i][0], p[1] - truth[marker.id][i][1])).toBeLessThan(0.1)
       })
     }
-  })
+  }, 60_000)
 
   it('fits a line through points with an outlier', () => {
     const pts: Pt[] = Array.from({ length: 20 }, (_, i) => [i, 2 * i + 1 + (i % 2 ? 0.01 : -0.01)] as Pt)
