@@ -1,6 +1,7 @@
 import type { AnalysisResult, AnalysisWarning } from '../schemas/analysis'
 import { contactLength, contactLengthSigma } from './contact'
 import { findFlatSpots, findKinks } from './defects'
+import { measureEdgeNoise } from './edge-noise'
 import type { BladeFrame, ToeSide } from './frames'
 import { bladeToCard, cardToBlade } from './frames'
 import type { EdgeMark } from './heel'
@@ -117,10 +118,12 @@ export function measureProfile(input: ProfileInput): ProfileMeasurement {
   const profile = radiusProfile(r.rocker, r.startX, r.endX)
   const edgeResidualMm = profile.length ? median(profile.map((w) => w.rmsMm)) : input.edgeSigmaMm
   const sigma = Math.max(input.edgeSigmaMm, edgeResidualMm)
+  const measuredNoise = measureEdgeNoise(r.rocker)
+  const averagingSigma = Math.max(sigma, measuredNoise.sigmaMm * Math.sqrt(measuredNoise.tau))
   const station = stationLift(input, blade, heel, r.endX)
   const radiusT = touchRadius(support, profile)
   const unc = measureUncertainty({
-    noise: { edgeSigmaMm: sigma, calibrationSigmaMm: input.calibrationSigmaMm },
+    noise: { edgeSigmaMm: sigma, averagingSigmaMm: averagingSigma, calibrationSigmaMm: input.calibrationSigmaMm },
     support, profile, heel, angles: loc.angles, blade, station, radiusT,
   })
   const rT = Number.isFinite(radiusT) ? radiusT : 1 / STRAIGHT_CURVATURE
@@ -141,7 +144,7 @@ export function measureProfile(input: ProfileInput): ProfileMeasurement {
     radiusProfile: profile.map(({ alongMm, curvaturePerMm, radiusMm }) => ({ alongMm, curvaturePerMm, radiusMm })),
     sectionRadii: sectionRadii(r.rocker, r.startX, support.touchPointMm, r.endX),
     flatSpots: findFlatSpots(r.rocker, r.startX, r.endX),
-    kinks: findKinks(r.rocker, r.startX, r.endX, curvatureLookup(profile, radiusT), sigma),
+    kinks: findKinks(r.rocker, r.startX, r.endX, curvatureLookup(profile, radiusT), averagingSigma),
     landmarks: landmarks(support, heel),
     warnings: warningsFor(input, blade, radiusT, station.unreachable),
     overrides: input.overrides && Object.keys(input.overrides).length ? { ...input.overrides } : null,

@@ -64,9 +64,9 @@ export function measureUncertainty(c: UncertaintyContext): ProfileUncertainty {
   const stationSigma =
     c.station.liftMm === null
       ? null
-      : Math.hypot(lineHeightSigma(sh, c.station.stationX, bt), extrapolationSigma(noise.edgeSigmaMm, c.station.xs, c.station.stationX))
-  const rels = c.profile.map((w) => relativeRadiusSigma(noise.edgeSigmaMm, w)).filter(Number.isFinite)
-  const relT = Number.isFinite(c.radiusT) ? curvatureSigma(noise.edgeSigmaMm, nT, PROFILE_WINDOW_MM) * c.radiusT : 1
+      : Math.hypot(lineHeightSigma(sh, c.station.stationX, bt), extrapolationSigma(noise.averagingSigmaMm, c.station.xs, c.station.stationX))
+  const rels = c.profile.map((w) => relativeRadiusSigma(noise.averagingSigmaMm, w)).filter(Number.isFinite)
+  const relT = Number.isFinite(c.radiusT) ? curvatureSigma(noise.averagingSigmaMm, nT, PROFILE_WINDOW_MM) * c.radiusT : 1
   return {
     touchPointMm: COVERAGE_K * touch,
     heelLiftMm: COVERAGE_K * lift,

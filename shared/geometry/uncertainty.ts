@@ -22,6 +22,11 @@ export const curvatureSigma = (sigmaMm: number, n: number, widthMm: number): num
 export interface NoiseModel {
   /** Per-point noise of the traced edge, normal to it. */
   edgeSigmaMm: number
+  /**
+   * Per-point noise to use where a fit averages many points: edgeSigmaMm·√τ when neighbouring points share their
+   * errors (τ from measureEdgeNoise), so a smoothed trace does not look n times better than it is.
+   */
+  averagingSigmaMm: number
   /** Card calibration residual, taken as a height error between distant parts of the blade. */
   calibrationSigmaMm: number
 }
@@ -32,7 +37,7 @@ export interface NoiseModel {
  */
 export function supportHeightSigma(noise: NoiseModel, touchWindowCount: number): number {
   const e = noise.edgeSigmaMm
-  return Math.hypot(e, centreHeightSigma(e, Math.max(touchWindowCount, 1)), noise.calibrationSigmaMm)
+  return Math.hypot(e, centreHeightSigma(noise.averagingSigmaMm, Math.max(touchWindowCount, 1)), noise.calibrationSigmaMm)
 }
 
 /**
@@ -51,7 +56,7 @@ export function touchPointSigma(
   const r = Number.isFinite(radiusMm) ? radiusMm : 1e5
   return Math.hypot(
     (r * sh) / touchPointMm,
-    r * slopeSigma(noise.edgeSigmaMm, Math.max(windowCount, 1), windowMm),
+    r * slopeSigma(noise.averagingSigmaMm, Math.max(windowCount, 1), windowMm),
     noise.edgeSigmaMm,
     noise.calibrationSigmaMm,
   )

@@ -9,7 +9,7 @@ import { ProfileError } from '../../../shared/geometry/profile-error'
 import { analysisResultSchema } from '../../../shared/schemas/analysis'
 import type { Vec2 } from '../../../shared/geometry/vec'
 import { interpolateY } from '../../../shared/geometry/vec'
-import { withNoise } from './helpers'
+import { withNoise, withSmoothedNoise } from './helpers'
 
 // Blade shapes are trade descriptions (common practice, no published source): 8–12.25 in blades, rocker of
 // ~1.5 m near the picks and 7–8 ft in the middle, base pick ~35–45 mm in front of the touch point.
@@ -149,6 +149,23 @@ describe('measureProfile defects', () => {
     expect(r.kinks).toHaveLength(1)
     expect(r.kinks[0].alongMm).toBeCloseTo(150, 0)
     expect(r.kinks[0].angleDeg).toBeGreaterThan(1.5)
+  })
+})
+
+describe('measureProfile on a smoothed trace', () => {
+  it('keeps its ± honest and reads no kinks when neighbouring points share their errors', () => {
+    // An engine that smooths its trace over 5 points: per-point scatter √5 smaller, but not independent.
+    const o: BladeModelOptions = { sizeIn: 10 }
+    const m = bladeModel(o)
+    let inside = 0
+    const trials = 20
+    for (let k = 0; k < trials; k++) {
+      const edge = withSmoothedNoise(m.edgeMm, 0.03, 5, 300 + k)
+      const r = measureProfile(input(o, edge, { edgeSigmaMm: 0.013 }))
+      if (Math.abs(r.touchPointMm - m.truth.touchPointMm) <= r.uncertainty.touchPointMm) inside++
+      expect(r.kinks).toEqual([])
+    }
+    expect(inside / trials).toBeGreaterThanOrEqual(0.9)
   })
 })
 

@@ -33,7 +33,7 @@ describe('uncertainty propagation', () => {
     // Raising B rocks the blade forward: T moves toward B.
     expect(40 - moved[0]).toBeCloseTo((2000 * 0.01) / 40, 2)
     // With only a calibration height error the formula reduces to that law (plus the along error itself).
-    const s = touchPointSigma({ edgeSigmaMm: 0, calibrationSigmaMm: 0.01 }, 2000, 40, 300, 40)
+    const s = touchPointSigma({ edgeSigmaMm: 0, averagingSigmaMm: 0, calibrationSigmaMm: 0.01 }, 2000, 40, 300, 40)
     expect(s).toBeCloseTo(Math.hypot(0.5, 0.01), 9)
   })
 
@@ -42,7 +42,7 @@ describe('uncertainty propagation', () => {
     const t = lowerTangentPoint([0, 0.01], circle)!
     const heightOnNewLine = (x: number) => 0.01 + ((t[1] - 0.01) * x) / t[0]
     expect(Math.abs(heightOnNewLine(200))).toBeCloseTo(lineHeightSigma(0.01, 200, 40), 3)
-    expect(supportHeightSigma({ edgeSigmaMm: 0.01, calibrationSigmaMm: 0 }, 400)).toBeCloseTo(Math.hypot(0.01, 0.015 / 20), 12)
+    expect(supportHeightSigma({ edgeSigmaMm: 0.01, averagingSigmaMm: 0.01, calibrationSigmaMm: 0 }, 400)).toBeCloseTo(Math.hypot(0.01, 0.015 / 20), 12)
   })
 
   it('predicts the scatter of fitted curvature and slope on noisy 40 mm windows (Monte Carlo)', () => {
