@@ -1,6 +1,7 @@
 import sharp from 'sharp'
 import { describe, expect, it } from 'vitest'
-import { getDocument } from 'pdfjs-dist/legacy/build/pdf.mjs'
+import { getDocument, OPS } from 'pdfjs-dist/legacy/build/pdf.mjs'
+import { markerGrid } from '../../../shared/card/aruco-dict'
 import { cardLayout, type Paper } from '../../../shared/card/layout'
 import { cardLayoutSchema } from '../../../shared/schemas/card'
 import { renderCard, renderCardRaster } from '../../../server/services/card.service'
@@ -23,6 +24,37 @@ async function pdfPages(buffer: Buffer) {
   return pages
 }
 
+interface PdfMarker { x0: number; y0: number; size: number; white: Set<string> }
+
+/**
+ * Marker squares drawn on one PDF page, read back from pdfjs's operator list: each black square's bounding box (mm,
+ * top-down as pdfkit writes it) and the cells of the white path that follows it.
+ */
+async function pdfMarkers(buffer: Buffer, pageNumber: number): Promise<PdfMarker[]> {
+  const doc = await getDocument({ data: new Uint8Array(buffer), verbosity: 0 }).promise
+  const ops = await (await doc.getPage(pageNumber)).getOperatorList()
+  await doc.destroy()
+  const markers: PdfMarker[] = []
+  let fill = ''
+  ops.fnArray.forEach((fn, i) => {
+    const args = ops.argsArray[i] as unknown[]
+    if (fn === OPS.setFillRGBColor) fill = String(args[0])
+    if (fn !== OPS.constructPath) return
+    const box = Array.from(args[2] as ArrayLike<number>, (v) => v * MM_PER_PT)
+    const square = Math.abs(box[2] - box[0] - (box[3] - box[1])) < 0.01 && box[2] - box[0] > 15
+    if (fill === '#000000' && square) markers.push({ x0: box[0], y0: box[1], size: box[2] - box[0], white: new Set() })
+    else if (fill === '#ffffff' && markers.length && markers[markers.length - 1].white.size === 0) {
+      const m = markers[markers.length - 1]
+      const path = Array.from((args[1] as ArrayLike<number>[])[0])
+      for (let k = 0; k + 12 < path.length; k += 13) {
+        const cell = m.size / 6
+        m.white.add(`${Math.round((path[k + 1] * MM_PER_PT - m.x0) / cell)},${Math.round((path[k + 2] * MM_PER_PT - m.y0) / cell)}`)
+      }
+    }
+  })
+  return markers
+}
+
 describe.each(papers)('card rendering %s', (paper) => {
   const layout = cardLayout(paper)
 
@@ -40,6 +72,41 @@ describe.each(papers)('card rendering %s', (paper) => {
     expect(pages[1].text).toContain('Hold the boot, not the blade.')
     expect(pages[1].text).toContain('Keep the guards on the toe picks.')
     expect(pages[1].text).toMatch(/fingers off the edge/)
+  }, 30_000)
+
+  it('PDF draws every marker of each sheet at its layout position and size, with its dictionary cells', async () => {
+    const pdf = await renderCard(paper, 'pdf')
+    for (const [index, sheet] of layout.sheets.entries()) {
+      const drawn = await pdfMarkers(pdf, index + 1)
+      const onSheet = layout.markers.filter((m) => m.cornersMm[0][0] >= sheet.visibleXMm[0] && m.cornersMm[1][0] <= sheet.visibleXMm[1])
+      expect(drawn).toHaveLength(onSheet.length)
+      for (const marker of onSheet) {
+        const x = marker.cornersMm[0][0] - sheet.offsetMm[0]
+        const y = marker.cornersMm[0][1] - sheet.offsetMm[1]
+        const match = drawn.find((d) => Math.abs(d.x0 - x) < 0.01 && Math.abs(d.y0 - y) < 0.01)
+        expect(match, `marker ${marker.id}`).toBeDefined()
+        expect(match!.size).toBeCloseTo(layout.markerSizeMm, 2)
+        const expected = new Set(markerGrid(marker.id).flatMap((white, k) => (white ? [`${k % 6},${Math.floor(k / 6)}`] : [])))
+        expect(match!.white).toEqual(expected)
+      }
+    }
+  }, 30_000)
+
+  it('PDF draws the check bar 100 mm long between its end ticks', async () => {
+    const doc = await getDocument({ data: new Uint8Array(await renderCard(paper, 'pdf')), verbosity: 0 }).promise
+    const ops = await (await doc.getPage(1)).getOperatorList()
+    await doc.destroy()
+    const boxes = ops.fnArray.flatMap((fn, i) => fn === OPS.constructPath
+      ? [Array.from((ops.argsArray[i] as unknown[])[2] as ArrayLike<number>, (v) => v * MM_PER_PT)] : [])
+    const { fromMm, toMm } = layout.checkBar
+    const rule = boxes.find((b) => Math.abs(b[1] - fromMm[1]) < 0.01 && Math.abs(b[3] - fromMm[1]) < 0.01)
+    expect(rule).toBeDefined()
+    expect(rule![0]).toBeCloseTo(fromMm[0], 2)
+    expect(rule![2] - rule![0]).toBeCloseTo(100, 2)
+    const ticks = boxes.filter((b) => Math.abs(b[2] - b[0]) < 0.01 && b[1] < fromMm[1] && b[3] > fromMm[1] && b[0] < toMm[0] + 1)
+    expect(ticks.map((b) => b[0]).sort((a, b) => a - b)).toEqual([
+      expect.closeTo(fromMm[0], 2), expect.closeTo(toMm[0], 2),
+    ])
   }, 30_000)
 
   it('PNG has the pixel size of the card at the requested dpi', async () => {
