@@ -21,15 +21,21 @@ export function authRoutes(ctx: AppContext): Router {
   const router = Router()
   const limits = createAuthLimiters()
   const client = (req: { get(h: string): string | undefined; ip?: string }) => ({ userAgent: req.get('user-agent'), ip: req.ip })
+  /** A new sign-in replaces the browser's previous session rather than leaving it valid behind the new cookie. */
+  const replaceSession = async (req: { session?: { id: string } }) => {
+    if (req.session) await authFor(ctx).invalidateSession(req.session.id)
+  }
 
   router.post('/auth/sign-up', ...limits.signUp, validate({ body: signUpBodySchema }), async (req, res) => {
     const account = await auth.signUp(ctx, req.body)
+    await replaceSession(req)
     await startSession(ctx, res, account.id, client(req))
     res.status(201).json(auth.toMe(account))
   })
 
   router.post('/auth/sign-in', ...limits.signIn, validate({ body: signInBodySchema }), async (req, res) => {
     const account = await auth.authenticate(ctx, req.body.email, req.body.password)
+    await replaceSession(req)
     await startSession(ctx, res, account.id, client(req))
     res.json(auth.toMe(account))
   })

@@ -65,6 +65,12 @@ describe('accounts: sign-up, verification, sign-in/out, reset, password change, 
     await client.get('/api/auth/me').expect(401)
   })
 
+  it('replaces the browser’s earlier session when it signs in again', async () => {
+    const { client, email } = await signedInAs(app, ctx, ['skater'])
+    await client.post('/api/auth/sign-in').send({ email, password: TEST_PASSWORD }).expect(200)
+    expect((await client.get('/api/auth/sessions').expect(200)).body).toHaveLength(1)
+  })
+
   it('resets a forgotten password through a single-use mailed link and ends every session', async () => {
     const { client, email } = await signedInAs(app, ctx, ['skater'])
     await agent(app, ctx).post('/api/auth/reset-request').send({ email }).expect(202)
