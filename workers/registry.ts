@@ -1,9 +1,10 @@
 import { jobNames } from '../shared/schemas/jobs'
 import type { JobDefinition } from './job'
+import { analyzePhotoJob } from './analyze-photo'
 import { sendMailJob } from './send-mail'
 
 /** Every job this worker handles. A new job file is added here and its payload in shared/schemas/jobs.ts. */
-export const jobs: JobDefinition<any>[] = [sendMailJob]
+export const jobs: JobDefinition<any>[] = [sendMailJob, analyzePhotoJob]
 
 /** Refuses to start with a job name that has no handler, or two handlers for one name. */
 export function checkRegistry(definitions: JobDefinition<any>[] = jobs): void {

@@ -3,6 +3,7 @@ import type { AppContext } from '../context'
 import { originCheck } from '../middleware/origin-check'
 import { loadSession } from '../middleware/require-auth'
 import { adminRoutes } from './admin.routes'
+import { analysisRoutes } from './analysis.routes'
 import { authRoutes } from './auth.routes'
 import { bladeRoutes } from './blade.routes'
 import { cardRoutes } from './card.routes'
@@ -21,7 +22,7 @@ export function apiRoutes(ctx: AppContext): Router {
   api.use(originCheck(ctx.config.PUBLIC_URL), loadSession(ctx))
   api.use(healthRoutes(ctx))
   api.use(authRoutes(ctx), skaterRoutes(ctx), shareRoutes(ctx), shopRoutes(ctx), adminRoutes(ctx))
-  api.use(cardRoutes(ctx), bladeRoutes(ctx))
+  api.use(cardRoutes(ctx), bladeRoutes(ctx), analysisRoutes(ctx))
   api.use(targetRoutes(ctx), historyRoutes(ctx))
   const dev = devRoutes(ctx)
   if (dev) api.use(dev)

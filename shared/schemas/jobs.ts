@@ -6,6 +6,7 @@ import { z } from 'zod'
  */
 export const jobPayloads = {
   'mail.send': z.object({ outboxId: z.uuid() }).describe('A queued e-mail to deliver'),
+  'photo.analyze': z.object({ analysisId: z.uuid() }).describe('A queued analysis of an uploaded blade photo'),
 } as const
 
 export type JobName = keyof typeof jobPayloads
