@@ -1,5 +1,6 @@
 import type { AppContext } from '../context'
 import { demoAccountsStep } from './demo-accounts'
+import { demoBladesStep } from './demo-blades'
 
 /** One step of demo data: what it creates, and the sign-ins `npm start` prints for it. */
 export interface SeedStep {
@@ -9,7 +10,7 @@ export interface SeedStep {
 }
 
 /** The demo scenario's steps in order. Each runs once per database, recorded in `seed_runs`. */
-export const seedSteps: SeedStep[] = [demoAccountsStep]
+export const seedSteps: SeedStep[] = [demoAccountsStep, demoBladesStep]
 
 /** Runs the steps not yet recorded. A step that fails is not recorded, so the next start tries it again. */
 export async function runSeeds(ctx: AppContext, steps: SeedStep[] = seedSteps): Promise<string[]> {

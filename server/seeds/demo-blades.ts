@@ -1,0 +1,38 @@
+import type { AppContext } from '../context'
+import { Blade } from '../entities/blade.entity'
+import { SkaterProfile } from '../entities/skater-profile.entity'
+import { createPair } from '../services/blade.service'
+import { uploadPhoto } from '../services/photo.service'
+import { recordSharpening } from '../services/sharpening.service'
+import { renderScene } from '../../fixtures/synthetic/render'
+import { sampleScene } from '../../fixtures/synthetic/scene'
+import type { SeedStep } from './index'
+
+/**
+ * Pairs of skates for the demo club's skaters, a few recorded sharpenings, and one photo of a generated (invented)
+ * blade queued for the worker, so the first `npm start` shows a real measurement made by the engine.
+ */
+export const demoBladesStep: SeedStep = {
+  name: 'demo-blades',
+  signIns: [],
+  async run(ctx: AppContext) {
+    const profiles = ctx.db.getRepository(SkaterProfile)
+    const tomas = await profiles.findOneBy({ name: 'Tomas Reyvik' })
+    const mila = await profiles.findOneBy({ name: 'Mila Haldor' })
+    if (!tomas || !mila) return
+    // The generator is code, not a stored image: the demo photo is rendered here, then measured by the worker.
+    const scene = sampleScene(3, { resolution: '3mp', frontal: true, discipline: 'freestyle' })
+    const photo = await renderScene(scene)
+    const sizeIn = scene.blade.nominalSizeIn
+    const comp = await createPair(ctx, tomas.id, { label: 'Competition skates', sizeIn, discipline: 'freestyle', sharpeningsAtRegistration: 0 })
+    await createPair(ctx, tomas.id, { label: 'Practice skates', sizeIn, discipline: 'freestyle', sharpeningsAtRegistration: 6 })
+    const milaPair = await createPair(ctx, mila.id, { label: 'Dance skates', sizeIn: 8.75, discipline: 'dance', sharpeningsAtRegistration: 2 })
+    const blades = ctx.db.getRepository(Blade)
+    for (const dto of [...comp.blades, ...milaPair.blades]) {
+      const blade = (await blades.findOneBy({ id: dto.id }))!
+      await recordSharpening(ctx, blade, { sharpenedOn: '2026-10-04', shop: 'Glenmere Edge Bench', technician: 'Sami Okoro', rootRadiusSixteenths: 7 }, null)
+    }
+    const left = (await blades.findOneBy({ id: comp.blades.find((b) => b.side === 'left')!.id }))!
+    await uploadPhoto(ctx, { blade: left, buffer: photo.jpeg, userId: tomas.ownerAccountId })
+  },
+}
