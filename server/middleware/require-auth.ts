@@ -3,7 +3,7 @@ import type { Session } from 'lucia'
 import type { Role } from '../../shared/schemas/auth'
 import type { AppContext } from '../context'
 import { ForbiddenError, UnauthorizedError } from '../errors'
-import { authFor, resolveSession } from '../services/session.service'
+import { authFor, resolveSession, SESSION_COOKIE } from '../services/session.service'
 
 /** The signed-in person as every route and service sees them. */
 export interface AuthUser {
@@ -32,7 +32,7 @@ declare global {
 export function loadSession(ctx: Pick<AppContext, 'db' | 'config'>): RequestHandler {
   return async (req, res, next) => {
     const header = req.headers.cookie
-    if (!header || !header.includes('rb_session=')) return next()
+    if (!header || !header.includes(`${SESSION_COOKIE}=`)) return next()
     const { session, user } = await resolveSession(ctx, header)
     const lucia = authFor(ctx)
     if (!session) {

@@ -65,6 +65,7 @@ export function authRoutes(ctx: AppContext): Router {
     res.status(202).json({ sent: true })
   })
 
+  // The token names no account, so only the per-address limit applies to guessing it.
   router.post('/auth/reset', ...limits.reset.slice(0, 1), validate({ body: resetBodySchema }), async (req, res) => {
     await auth.resetPassword(ctx, req.body.token, req.body.password)
     res.status(204).end()

@@ -3,7 +3,7 @@ import type { AppContext } from '../context'
 import { SkaterProfile } from '../entities/skater-profile.entity'
 import { NotFoundError } from '../errors'
 import type { AuthUser } from '../middleware/require-auth'
-import { relationAllows, type SkaterAccessMode } from './policy'
+import { COACH_SHARE_ROLE, relationAllows, type SkaterAccessMode } from './policy'
 
 type Ctx = Pick<AppContext, 'db'>
 type Caller = Pick<AuthUser, 'id' | 'roles'>
@@ -15,7 +15,7 @@ const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i
  * still holds the coach role), and active shop shares of shops the account works at.
  */
 async function relations(ctx: Ctx, user: Caller, skaterId?: string): Promise<Map<string, SkaterVia[]>> {
-  const isCoach = user.roles.includes('coach')
+  const isCoach = user.roles.includes(COACH_SHARE_ROLE)
   const rows: { id: string; via: SkaterVia }[] = await ctx.db.query(
     `SELECT p.id, 'owner' AS via FROM skater_profiles p
       WHERE p.owner_account_id = $1 AND ($2::uuid IS NULL OR p.id = $2)

@@ -18,11 +18,8 @@ export const skaterAccessByRelation: Record<SkaterVia, readonly SkaterAccessMode
   shop: ['read', 'write'],
 }
 
-/** The role an account needs for a share of each kind to count: a coach share is void once the coach role is gone. */
-export const roleForRelation: Record<Exclude<SkaterVia, 'owner'>, Role | null> = {
-  coach: 'coach',
-  shop: null,
-}
+/** A coach share counts only while the account still holds the coach role (checked in `access.service.ts`). */
+export const COACH_SHARE_ROLE: Role = 'coach'
 
 export function relationAllows(via: readonly SkaterVia[], mode: SkaterAccessMode): boolean {
   return via.some((v) => skaterAccessByRelation[v].includes(mode))
