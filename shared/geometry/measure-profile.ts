@@ -93,6 +93,16 @@ function locate(input: ProfileInput): Located {
 }
 
 /**
+ * The blade frame detection finds with no overrides — the frame in which overrides' alongMm are measured. To turn
+ * a landmark a person dragged on the photo into an override: photo px → card mm (inverse homography), then
+ * cardToBlade(detectedFrame(input), point)[0].
+ */
+export function detectedFrame(input: ProfileInput): BladeFrame {
+  const { work } = orderedWork(input.edgeMm, input.toe)
+  return detectSupport(work, input.toe).frame
+}
+
+/**
  * Where a person put E: the first place behind T where the edge reaches alongMm, interpolated between points.
  * Walking from T, that is the running surface or the start of the heel corner, never higher up the heel face.
  */

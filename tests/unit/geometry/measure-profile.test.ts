@@ -4,7 +4,7 @@ import { bladeModel } from '../../../shared/geometry/blade-model'
 import { bladeToCard, cardToBlade } from '../../../shared/geometry/frames'
 import { feetToMm } from '../../../shared/geometry/hollow'
 import type { ProfileInput } from '../../../shared/geometry/measure-profile'
-import { measureProfile } from '../../../shared/geometry/measure-profile'
+import { detectedFrame, measureProfile } from '../../../shared/geometry/measure-profile'
 import { ProfileError } from '../../../shared/geometry/profile-error'
 import { analysisResultSchema } from '../../../shared/schemas/analysis'
 import type { Vec2 } from '../../../shared/geometry/vec'
@@ -173,6 +173,15 @@ describe('measureProfile overrides', () => {
   const o: BladeModelOptions = { sizeIn: 10 }
   const m = bladeModel(o)
   const detected = measureProfile(input(o, m.edgeMm))
+
+  it('turns a point dragged on the card into an override through the detected frame', () => {
+    const frame = detectedFrame(input(o, m.edgeMm, { overrides: { heelEndAlongMm: 150 } }))
+    const dragged = bladeToCard(m.frame, [180, 5])
+    const along = cardToBlade(frame, dragged)[0]
+    expect(along).toBeCloseTo(180, 6)
+    const r = measureProfile(input(o, m.edgeMm, { overrides: { heelEndAlongMm: along } }))
+    expect(r.landmarks.heelEnd.alongMm).toBeCloseTo(180, 6)
+  })
 
   it('reads the heel lift where a person put E', () => {
     const r = measureProfile(input(o, m.edgeMm, { overrides: { heelEndAlongMm: 200 } }))
