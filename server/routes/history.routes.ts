@@ -9,6 +9,7 @@ import { bladeFor } from '../services/blade-access'
 import {
   clearBaseline, compareTwo, comparePair, compareSharpening, compareWithBaseline, markBaseline,
 } from '../services/comparison.service'
+import { attentionList } from '../services/attention.service'
 import { bladeHistory } from '../services/history.service'
 import { analysisReport, bladeReport } from '../services/report.service'
 import { historyCsv, markBaselineSchema, type HistoryRow } from '../../shared/schemas/history'
@@ -27,6 +28,9 @@ export function historyRoutes(ctx: AppContext): Router {
   const r = Router()
   const p = (req: { params: unknown }) => req.params as Record<string, string>
 
+  r.get('/attention', requireAuth, async (req, res) => {
+    res.json(await attentionList(ctx, signedIn(req)))
+  })
   r.get('/blades/:bladeId/history', requireAuth, validate({ params: bladeParams }), async (req, res) => {
     const user = signedIn(req)
     res.json((await bladeHistory(ctx, await bladeFor(ctx, user, p(req).bladeId, 'read'), user)).history)

@@ -90,5 +90,5 @@ export async function bladeHistory(ctx: Ctx, blade: Blade, user: AuthUser | null
       hockeyGrind: s.rootRadiusSixteenths !== null && isHockeyGrind(s.rootRadiusSixteenths),
     })),
   }
-  return { history, resolved, analyses }
+  return { history, resolved, analyses, names }
 }

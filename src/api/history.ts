@@ -1,3 +1,4 @@
+import type { AttentionItem } from '../../shared/schemas/attention'
 import type { ComparisonDto } from '../../shared/schemas/comparison'
 import type { Baseline, BladeHistory } from '../../shared/schemas/history'
 import { request } from './client'
@@ -27,3 +28,5 @@ export const bladeCsvUrl = (bladeId: string) => `/api/blades/${enc(bladeId)}/his
 export const skaterCsvUrl = (skaterId: string) => `/api/skaters/${enc(skaterId)}/history.csv`
 export const bladeReportUrl = (bladeId: string) => `/api/blades/${enc(bladeId)}/report.pdf`
 export const analysisReportUrl = (analysisId: string) => `/api/analyses/${enc(analysisId)}/report.pdf`
+
+export const listAttention = () => request<AttentionItem[]>('/attention')
