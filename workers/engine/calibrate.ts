@@ -117,9 +117,13 @@ export function calibrate(cv: Cv, img: GreyImage, reduced: Mat, scale: number, l
   const refined = detected
     .map((m) => ({ id: m.id, corners: refineMarkerCorners(img, m, window) }))
     .filter((m): m is { id: number; corners: Pt[] } => m.corners !== null)
-  const candidates = layouts.map((l) => rejectOutlierMarkers(match(l, refined))).filter(spansCard)
-  if (candidates.length === 0)
+  const matched = layouts.map((l) => rejectOutlierMarkers(match(l, refined)))
+  const candidates = matched.filter(spansCard)
+  if (candidates.length === 0) {
+    // Markers of one end only: the photo shows part of the card, so the blade runs out of it too.
+    if (matched.some((m) => m.ids.length >= 3)) throw new EngineRefusal('BLADE_CUT_OFF', 'markers of one end only')
     throw new EngineRefusal('CARD_NOT_FOUND', `${detected.length} markers detected, ${refined.length} refined`)
+  }
   const scored = candidates.map((m) => ({ m, r: rmsResidual(fitHomography(m.card, m.photo), m.card, m.photo) }))
   scored.sort((x, y) => y.m.ids.length - x.m.ids.length || x.r - y.r)
   const best = scored[0].m

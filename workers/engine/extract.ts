@@ -1,5 +1,5 @@
 import { cardLayout, type CardLayout } from '../../shared/card/layout'
-import { getCv, withMats } from './opencv'
+import { getCv, withMats, type Cv, type Mat } from './opencv'
 import { decodeGrey, type GreyImage } from './image'
 import { DETECT_MAX_SIDE, reduce, toMat } from './markers'
 import { calibrate, type CardMarkers, type Calibration } from './calibrate'
@@ -15,6 +15,36 @@ export const RUNNER_OFFSET_MM = 2
 /** Blur (Gaussian sigma of the edge) beyond which the edge cannot be located well enough, mm and photo px. */
 export const MAX_BLUR_MM = 0.45
 export const MAX_BLUR_PX = 6
+/**
+ * Whole-photo sharpness: standard deviation of the Laplacian of the photo reduced to 1000 px, over the photo's own
+ * standard deviation. Measured on synthetic photos: 0.57–0.97 for usable ones, 0.12–0.32 for strongly defocused ones.
+ */
+const MIN_PHOTO_SHARPNESS = 0.42
+
+function photoSharpness(cv: Cv, full: Mat): number {
+  return withMats((track) => {
+    const { mat } = reduce(cv, full, 1000)
+    track(mat)
+    const lap = track(new cv.Mat())
+    cv.Laplacian(mat, lap, cv.CV_32F, 3)
+    const [m1, s1, m2, s2] = [track(new cv.Mat()), track(new cv.Mat()), track(new cv.Mat()), track(new cv.Mat())]
+    cv.meanStdDev(lap, m1, s1)
+    cv.meanStdDev(mat, m2, s2)
+    return s1.data64F[0] / Math.max(1, s2.data64F[0])
+  })
+}
+
+/** Runs `find`, but says TOO_BLURRY rather than "not found" when the whole photo is out of focus. */
+function orExplainBlur<T>(cv: Cv, full: Mat, find: () => T): T {
+  try {
+    return find()
+  } catch (err) {
+    const notFound = err instanceof EngineRefusal && (err.code === 'CARD_NOT_FOUND' || err.code === 'BLADE_NOT_FOUND')
+    if (notFound && photoSharpness(cv, full) < MIN_PHOTO_SHARPNESS) throw new EngineRefusal('TOO_BLURRY', 'photo out of focus')
+    throw err
+  }
+}
+
 /** Card residual beyond which the card is bent, misprinted or misdetected, mm. */
 export const MAX_CARD_RESIDUAL_MM = 0.6
 
@@ -58,10 +88,10 @@ async function locate(img: GreyImage, layouts: CardLayout[], printScale: number)
   const cv = await getCv()
   return withMats((track) => {
     const full = track(toMat(cv, img))
-    const { mat, scale } = reduce(cv, full, DETECT_MAX_SIDE)
-    track(mat)
-    full.delete()
-    const calibration = calibrate(cv, img, mat, scale, layouts.map((l) => scaledMarkers(l, printScale)))
+    const reduced = reduce(cv, full, DETECT_MAX_SIDE)
+    track(reduced.mat)
+    const markers = layouts.map((l) => scaledMarkers(l, printScale))
+    const calibration = orExplainBlur(cv, full, () => calibrate(cv, img, reduced.mat, reduced.scale, markers))
     if (calibration.residualMm > MAX_CARD_RESIDUAL_MM)
       throw new EngineRefusal('CARD_NOT_FOUND', `card residual ${calibration.residualMm.toFixed(2)} mm`)
     const layout = layouts.find((l) => l.paper === calibration.paper) as CardLayout
@@ -71,7 +101,7 @@ async function locate(img: GreyImage, layouts: CardLayout[], printScale: number)
       top: z.yMm * printScale, tableY: layout.heightMm * printScale,
     }
     const shade = fitCardShade(img, calibration, scaledMarkers(layout, printScale))
-    const edge = traceBlade(cv, img, calibration, zone, RUNNER_OFFSET_MM, shade)
+    const edge = orExplainBlur(cv, full, () => traceBlade(cv, img, calibration, zone, RUNNER_OFFSET_MM, shade))
     return { calibration, layout, edge }
   })
 }
