@@ -5,15 +5,12 @@
 import { writeFile } from 'node:fs/promises'
 import { parseArgs } from 'node:util'
 import { z } from 'zod'
-import { cardFormatSchema, paperSchema } from '../../shared/schemas/card'
-import { DEFAULT_DPI, MAX_DPI, renderCard } from '../services/card.service'
+import { cardDownloadQuerySchema } from '../../shared/schemas/card'
+import { renderCard } from '../services/card.service'
 
 const USAGE = 'usage: npm run card -- --paper a4|letter --format pdf|png|json [--dpi 300] --out FILE'
 
-const argsSchema = z.object({
-  paper: paperSchema,
-  format: cardFormatSchema,
-  dpi: z.coerce.number().int().min(30).max(MAX_DPI).default(DEFAULT_DPI),
+const argsSchema = cardDownloadQuerySchema.extend({
   out: z.string({ error: 'an output file is required' }).min(1, 'an output file is required'),
 })
 

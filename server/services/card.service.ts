@@ -4,7 +4,7 @@ import sharp from 'sharp'
 import { markerGrid, MARKER_CELLS } from '../../shared/card/aruco-dict'
 import { cardLayout, type CardLayout } from '../../shared/card/layout'
 import { printPlan, type PrintItem, type SheetPlan } from '../../shared/card/print-plan'
-import type { CardFormat, Paper } from '../../shared/schemas/card'
+import { CARD_DPI, type CardFormat, type Paper } from '../../shared/schemas/card'
 
 export interface RenderCardOptions {
   /** PNG resolution, dots per inch; ignored by PDF and JSON. */
@@ -14,8 +14,8 @@ export interface RenderCardOptions {
 /** A greyscale raster of the assembled card: one byte per pixel (0 black … 255 white), row-major. */
 export interface CardRaster { data: Uint8Array; width: number; height: number; pxPerMm: number }
 
-export const DEFAULT_DPI = 300
-export const MAX_DPI = 1200
+export const DEFAULT_DPI = CARD_DPI.default
+export const MAX_DPI = CARD_DPI.max
 const PT_PER_MM = 72 / 25.4
 const FONT_DIR = createRequire(import.meta.url).resolve('@fontsource/ibm-plex-sans/package.json').replace(/package\.json$/, 'files/')
 const FONTS = { regular: `${FONT_DIR}ibm-plex-sans-latin-400-normal.woff`, bold: `${FONT_DIR}ibm-plex-sans-latin-600-normal.woff` }
@@ -24,11 +24,13 @@ const FONTS = { regular: `${FONT_DIR}ibm-plex-sans-latin-400-normal.woff`, bold:
 export async function renderCard(paper: Paper, format: CardFormat, options: RenderCardOptions = {}): Promise<Buffer> {
   if (format === 'json') return Buffer.from(`${JSON.stringify(cardLayout(paper), null, 2)}\n`)
   if (format === 'pdf') return renderCardPdf(paper)
-  return renderCardPng(paper, options.dpi ?? DEFAULT_DPI)
+  return renderCardPng(paper, options.dpi ?? CARD_DPI.default)
 }
 
 function checkDpi(dpi: number): void {
-  if (!Number.isFinite(dpi) || dpi < 30 || dpi > MAX_DPI) throw new RangeError(`dpi must be 30–${MAX_DPI}, got ${dpi}`)
+  if (!Number.isFinite(dpi) || dpi < CARD_DPI.min || dpi > CARD_DPI.max) {
+    throw new RangeError(`dpi must be ${CARD_DPI.min}–${CARD_DPI.max}, got ${dpi}`)
+  }
 }
 
 const grey255 = (g: number) => Math.round(g * 255)

@@ -149,8 +149,3 @@ export function cardLayout(paper: Paper): CardLayout {
     longestBladeMm: LONGEST_BLADE_MM,
   }
 }
-
-/** Which sheet prints a card-frame point: sheet 2 wherever it lies on top, else sheet 1. */
-export function sheetAt(layout: CardLayout, xMm: number): CardSheet {
-  return xMm >= layout.joinXMm ? layout.sheets[1] : layout.sheets[0]
-}

@@ -7,6 +7,17 @@ export const paperSchema = z.enum(['a4', 'letter']).describe('paper the card is 
 
 export const cardFormatSchema = z.enum(['pdf', 'png', 'json']).describe('card download format')
 
+/** PNG resolution limits, dots per inch: 300 prints sharply; 1200 keeps the raster under ~50 MP. */
+export const CARD_DPI = { min: 30, max: 1200, default: 300 } as const
+
+/** Query of a card download (and the CLI's options): which paper, which format, and the PNG's dpi. */
+export const cardDownloadQuerySchema = z.object({
+  paper: paperSchema,
+  format: cardFormatSchema,
+  dpi: z.coerce.number().int().min(CARD_DPI.min).max(CARD_DPI.max).default(CARD_DPI.default)
+    .describe('PNG resolution in dots per inch; ignored for pdf and json'),
+})
+
 export const cardMarkerSchema = z.object({
   id: z.number().int().min(0).max(49).describe('DICT_4X4_50 marker id'),
   cornersMm: z.tuple([pointMm, pointMm, pointMm, pointMm])
@@ -48,3 +59,4 @@ export const cardLayoutSchema = z.object({
 export type CardLayoutDto = z.infer<typeof cardLayoutSchema>
 export type Paper = z.infer<typeof paperSchema>
 export type CardFormat = z.infer<typeof cardFormatSchema>
+export type CardDownloadQuery = z.infer<typeof cardDownloadQuerySchema>
