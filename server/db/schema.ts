@@ -7,6 +7,7 @@ import { BladeBaseline } from '../entities/blade-baseline.entity'
 import { EmailToken } from '../entities/email-token.entity'
 import { OutboundMail } from '../entities/outbound-mail.entity'
 import { Photo } from '../entities/photo.entity'
+import { ReferenceProfile } from '../entities/reference-profile.entity'
 import { Sharpening } from '../entities/sharpening.entity'
 import { SkatePair } from '../entities/skate-pair.entity'
 import { ShopInvitation } from '../entities/shop-invitation.entity'
@@ -22,13 +23,14 @@ import { CreateSkatersShopsShares1764650100000 } from '../migrations/17646501000
 import { CreateBladeRecords1764660000000 } from '../migrations/1764660000000-CreateBladeRecords'
 import { CreateTargetSettings1764670000000 } from '../migrations/1764670000000-CreateTargetSettings'
 import { CreateBladeBaselines1764670100000 } from '../migrations/1764670100000-CreateBladeBaselines'
+import { CreateReferenceProfiles1764670200000 } from '../migrations/1764670200000-CreateReferenceProfiles'
 
 /**
  * Every entity and migration, imported explicitly: loading them by file glob bypasses the test runner's
  * TypeScript transform, and an explicit list shows in review what a change adds. Keep migrations in time order.
  */
 export const entities = [OutboundMail, Account, AuthSession, EmailToken, SkaterProfile, Shop, ShopMember, ShopInvitation, SkaterShare,
-  SkatePair, Blade, Photo, Analysis, Annotation, Sharpening, TargetSetting, BladeBaseline]
+  SkatePair, Blade, Photo, Analysis, Annotation, Sharpening, TargetSetting, BladeBaseline, ReferenceProfile]
 
 export const migrations = [
   CreateSeedRuns1764640000000,
@@ -38,4 +40,5 @@ export const migrations = [
   CreateBladeRecords1764660000000,
   CreateTargetSettings1764670000000,
   CreateBladeBaselines1764670100000,
+  CreateReferenceProfiles1764670200000,
 ]

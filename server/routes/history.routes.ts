@@ -11,6 +11,7 @@ import {
 } from '../services/comparison.service'
 import { attentionList } from '../services/attention.service'
 import { bladeHistory } from '../services/history.service'
+import { compareWithReference, listReferences, saveReference } from '../services/reference.service'
 import { analysisReport, bladeReport } from '../services/report.service'
 import { historyCsv, markBaselineSchema, type HistoryRow } from '../../shared/schemas/history'
 
@@ -18,6 +19,7 @@ const bladeParams = z.object({ bladeId: z.uuid() })
 const skaterParams = z.object({ skaterId: z.uuid() })
 const idParams = z.object({ id: z.uuid() })
 const twoParams = z.object({ id: z.uuid(), otherId: z.uuid() })
+const shopParams = z.object({ shopId: z.uuid() })
 
 function sendCsv(res: Response, name: string, rows: HistoryRow[]) {
   res.type('text/csv; charset=utf-8').attachment(`${name}.csv`).send(historyCsv(rows))
@@ -65,6 +67,15 @@ export function historyRoutes(ctx: AppContext): Router {
   })
   r.get('/sharpenings/:id/compare', requireAuth, validate({ params: idParams }), async (req, res) => {
     res.json(await compareSharpening(ctx, signedIn(req), p(req).id))
+  })
+  r.get('/analyses/:id/compare-reference', requireAuth, validate({ params: idParams }), async (req, res) => {
+    res.json(await compareWithReference(ctx, signedIn(req), p(req).id))
+  })
+  r.get('/shops/:shopId/reference-profiles', requireAuth, validate({ params: shopParams }), async (req, res) => {
+    res.json(await listReferences(ctx, signedIn(req), p(req).shopId))
+  })
+  r.post('/shops/:shopId/reference-profiles', requireAuth, validate({ params: shopParams, body: markBaselineSchema }), async (req, res) => {
+    res.status(201).json(await saveReference(ctx, signedIn(req), p(req).shopId, req.body.analysisId))
   })
   r.get('/analyses/:id/compare/:otherId', requireAuth, validate({ params: twoParams }), async (req, res) => {
     res.json(await compareTwo(ctx, signedIn(req), p(req).id, p(req).otherId))

@@ -7,6 +7,7 @@ import type { AuthUser } from '../middleware/require-auth'
 import { analysisFor, bladeFor, pairFor, sharpeningFor } from './blade-access'
 import { baselineOf, measuredAnalyses, type MeasuredAnalysis } from './history.service'
 import { compareAnalyses } from '../../shared/compare/analyses'
+import type { AnalysisResult } from '../../shared/schemas/analysis'
 import type { ComparisonDto } from '../../shared/schemas/comparison'
 import type { Baseline } from '../../shared/schemas/history'
 
@@ -23,10 +24,31 @@ function measured(a: Analysis): MeasuredAnalysis {
   return a as MeasuredAnalysis
 }
 
-function build(kind: ComparisonDto['kind'], first: [MeasuredAnalysis, Blade], second: [MeasuredAnalysis, Blade], extra: string[] = []): ComparisonDto {
-  const info = ([a, b]: [MeasuredAnalysis, Blade]) => ({ analysisId: a.id, bladeId: b.id, side: b.side, takenAt: a.queuedAt.toISOString() })
-  const cmp = compareAnalyses(first[0].result, second[0].result)
+/** One side of a comparison: a stored analysis, or a shop's saved reference profile. */
+export interface ComparedInput {
+  id: string
+  result: AnalysisResult
+  takenAt: Date
+  side: Blade['side']
+  bladeId: string
+}
+
+const fromAnalysis = ([a, b]: [MeasuredAnalysis, Blade]): ComparedInput =>
+  ({ id: a.id, result: a.result, takenAt: a.queuedAt, side: b.side, bladeId: b.id })
+
+function compareInputs(kind: ComparisonDto['kind'], first: ComparedInput, second: ComparedInput, extra: string[] = []): ComparisonDto {
+  const info = (x: ComparedInput) => ({ analysisId: x.id, bladeId: x.bladeId, side: x.side, takenAt: x.takenAt.toISOString() })
+  const cmp = compareAnalyses(first.result, second.result)
   return { kind, first: info(first), second: info(second), ...cmp, notes: [...extra, ...NOTES] }
+}
+
+function build(kind: ComparisonDto['kind'], first: [MeasuredAnalysis, Blade], second: [MeasuredAnalysis, Blade], extra: string[] = []): ComparisonDto {
+  return compareInputs(kind, fromAnalysis(first), fromAnalysis(second), extra)
+}
+
+/** A reference (or any stored result) against one analysis of a blade, the reference first. */
+export function compareTwoResults(kind: ComparisonDto['kind'], first: ComparedInput, analysis: Analysis, blade: Blade, extra: string[] = []): ComparisonDto {
+  return compareInputs(kind, first, fromAnalysis([measured(analysis), blade]), extra)
 }
 
 /** Any two analyses the caller may read, the first as the reference. */

@@ -19,7 +19,7 @@ export const metricChangeSchema = z.object({
 })
 
 export const comparisonSchema = z.object({
-  kind: z.enum(['any', 'baseline', 'pair', 'sharpening']),
+  kind: z.enum(['any', 'baseline', 'pair', 'sharpening', 'reference']),
   first: comparedAnalysisSchema,
   second: comparedAnalysisSchema,
   registration: z.object({
