@@ -43,7 +43,32 @@ export function findSupportHull(work: readonly Vec2[]): SupportHull {
   }
   if (!best || bestLength < MIN_BRIDGE_MM)
     throw new ProfileError('BLADE_CUT_OFF', 'The toe picks are not in the traced edge, so the base pick cannot be found.')
+  if (!isToothTip(work, best.basePickIndex))
+    throw new ProfileError('BLADE_NOT_FOUND', 'The base pick could not be told apart from the rocker in the traced edge.')
   return best
+}
+
+/** A tooth's front face rises at least this much within TOOTH_FACE_ARC_MM in front of its tip (mm). */
+export const TOOTH_FACE_RISE_MM = 0.3
+export const TOOTH_FACE_ARC_MM = 2
+
+/**
+ * True when the edge rises by TOOTH_FACE_RISE_MM within TOOTH_FACE_ARC_MM in front of point i, as a pick tooth's
+ * front face does; along a rocker it rises by hundredths. A bridge that starts on the rocker means the trace
+ * lost the base pick's tip, and any touch point read from it would be wrong by tens of millimetres.
+ */
+export function isToothTip(work: readonly Vec2[], i: number): boolean {
+  let arc = 0
+  for (let j = i - 1; j >= 0; j--) {
+    const step = dist(work[j], work[j + 1])
+    // On a sparse trace the face may reach past the arc within one segment: read it where the arc ends.
+    const t = arc + step > TOOTH_FACE_ARC_MM ? (TOOTH_FACE_ARC_MM - arc) / step : 1
+    const y = work[j + 1][1] + t * (work[j][1] - work[j + 1][1])
+    if (y - work[i][1] >= TOOTH_FACE_RISE_MM) return true
+    arc += step
+    if (arc >= TOOTH_FACE_ARC_MM) break
+  }
+  return false
 }
 
 /**

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { findSupportHull, lowerTangentPoint, refineTouchPoint } from '../../../shared/geometry/support-line'
+import { findSupportHull, isToothTip, lowerTangentPoint, refineTouchPoint } from '../../../shared/geometry/support-line'
 import {
   directionAngles,
   extrapolateStationLift,
@@ -31,6 +31,16 @@ describe('support line', () => {
     expect(work[hull.basePickIndex]).toEqual([0, 0])
     expect(work[hull.touchIndex][0]).toBeCloseTo(40, 0)
     expect(() => findSupportHull(rocker)).toThrow(ProfileError)
+  })
+
+  it('refuses a bridge that starts on the rocker, as when a trace rounds the base pick off', () => {
+    // The tip traced too high and a wavy rocker: the longest bridge in front of the lowest point runs from x = 17
+    // on the rocker, not from a tooth.
+    const blunted: Vec2[] = [[-12, 4], [-9, 6], [-6, 3], [-3, 4], [0, 1.1], [2, 5], [5, 0.6], [10, 0.3], [17, 0.05],
+      [27, 0.1], [37, 0], [60, -0.5], [120, -1], [200, -0.2], [203, 5]]
+    expect(isToothTip(blunted, 4)).toBe(true)
+    expect(isToothTip(blunted, 8)).toBe(false)
+    expect(() => findSupportHull(blunted)).toThrow(/told apart/)
   })
 
   it('finds the tangent point from B to a circle: √(d² − r²) from B', () => {
