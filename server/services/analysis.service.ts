@@ -61,9 +61,10 @@ export type AnalysisOutcome =
  * nothing to do, so a job that runs twice (a retry after a crash, a duplicate send) changes nothing.
  */
 export async function claimAnalysis(ctx: Ctx, id: string, algorithmVersion: string): Promise<Analysis | null> {
-  const rows: { id: string }[] = await ctx.db.query(
+  // TypeORM answers an UPDATE on PostgreSQL with [rows, affected count], not the rows alone.
+  const [rows]: [{ id: string }[], number] = await ctx.db.query(
     `UPDATE analyses SET status = 'running', started_at = now(), attempts = attempts + 1
-      WHERE id = $1 AND NOT (status IN ('measured', 'refused', 'failed') AND algorithm_version = $2)
+      WHERE id = $1 AND (status NOT IN ('measured', 'refused', 'failed') OR algorithm_version IS DISTINCT FROM $2)
       RETURNING id`, [id, algorithmVersion])
   if (!rows.length) return null
   return ctx.db.getRepository(Analysis).findOneBy({ id })
