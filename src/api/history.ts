@@ -15,11 +15,13 @@ export type CompareRequest =
   | { kind: 'pair'; pairId: string }
   | { kind: 'sharpening'; sharpeningId: string }
   | { kind: 'any'; firstId: string; secondId: string }
+  | { kind: 'reference'; analysisId: string }
 
 export function getComparison(c: CompareRequest): Promise<ComparisonDto> {
   if (c.kind === 'baseline') return request(`/blades/${enc(c.bladeId)}/compare/baseline`)
   if (c.kind === 'pair') return request(`/pairs/${enc(c.pairId)}/compare`)
   if (c.kind === 'sharpening') return request(`/sharpenings/${enc(c.sharpeningId)}/compare`)
+  if (c.kind === 'reference') return request(`/analyses/${enc(c.analysisId)}/compare-reference`)
   return request(`/analyses/${enc(c.firstId)}/compare/${enc(c.secondId)}`)
 }
 
