@@ -1,4 +1,5 @@
 import { cardLayout, type CardLayout, type CardSheet, type Paper, type PointMm } from './layout'
+import { ASSEMBLY_STEPS, CAPTURE_STEPS, CHECK_BAR_NOTE, HANDLING_CAUTIONS, wrapText } from './wording'
 
 /**
  * What to print on each sheet, as drawing primitives in the sheet's own frame (mm, origin top-left of the landscape
@@ -24,6 +25,11 @@ function text(t: string, x: number, y: number, size: number, extra: Partial<Prin
   return { kind: 'text', text: t, xMm: x, yMm: y, sizeMm: size, grey: INK, ...extra }
 }
 
+/** Numbered steps, wrapped; continuation lines start with a space so `lines` indents them under the text. */
+function numbered(steps: readonly string[], maxChars: number): string[] {
+  return steps.flatMap((step, i) => wrapText(`${i + 1}. ${step}`, maxChars).map((l, k) => (k ? ` ${l}` : l)))
+}
+
 /** Lines of text; a line starting with spaces continues the item above, so it is indented instead. */
 function lines(items: string[], x: number, y: number, size: number, lead: number, grey = INK): PrintItem[] {
   return items.map((t, i) => {
@@ -44,10 +50,7 @@ function checkBarItems(layout: CardLayout, dx: number): PrintItem[] {
     tick(x0), tick(x1), head(x0, 1), head(x1, -1),
     { kind: 'line', from: [x0, y], to: [x1, y], widthMm: 0.5, grey: INK },
     text('100 mm check bar', x0, y - 10, 3.6, { bold: true }),
-    ...lines([
-      'Measure from tick to tick with a ruler once after printing',
-      'and enter your reading with this card id in the app.',
-    ], x0, y + 13, 3, 4.2),
+    ...lines(wrapText(CHECK_BAR_NOTE, 60), x0, y + 13, 3, 4.2),
   ]
 }
 
@@ -77,11 +80,7 @@ function sheetOneItems(layout: CardLayout): PrintItem[] {
     text('Rockerbook scale card', x, 18, 5, { bold: true }),
     text(layout.cardId, x, 31, 8, { bold: true }),
     ...checkBarItems(layout, 0),
-    ...lines([
-      'Assembly: print both sheets at 100 % (actual size, no fit to page).',
-      'Cut sheet 2 on its dashed line. Lay its cut edge on the solid line',
-      'of sheet 1 so the short rules run straight across; tape the back.',
-    ], x, 97, 2.9, 4.1),
+    ...lines(wrapText(`Assembly: ${ASSEMBLY_STEPS.join(' ')}`, 68), x, 97, 2.9, 4.1),
     text('Sheet 1 of 2', x, layout.bladeZone.yMm - 4, 2.6, { grey: SOFT }),
     text(`Sheet 2 covers this part. ${layout.cardId}`, join + 8, 40, 3.2, { grey: SOFT }),
     { kind: 'line', from: [join, 6], to: [join, layout.bladeZone.yMm - 2], widthMm: 0.3, grey: INK },
@@ -97,19 +96,9 @@ function sheetTwoItems(layout: CardLayout): PrintItem[] {
   const x = cut + 16
   return [
     text('Taking the photo', x, 18, 4.2, { bold: true }),
-    ...lines([
-      '1. Stand the skate on its blade on a table, holding it by the boot.',
-      '2. Stand this card upright right behind the runner, touching it,',
-      '    its bottom edge on the table, both blade ends inside the band.',
-      '3. From 30–60 cm, a little above the table, photograph square-on',
-      '    with the whole card and blade in the frame; avoid glare.',
-    ], x, 27, 3, 4.3),
+    ...lines(numbered(CAPTURE_STEPS, 70), x, 27, 3, 4.3),
     text('Handle with care: blades are sharp', x, 60, 4.2, { bold: true }),
-    ...lines([
-      '• Keep the guards on the toe picks.',
-      '• Hold the boot, not the blade.',
-      '• Keep your fingers off the edge.',
-    ], x, 69, 3, 4.3),
+    ...lines(HANDLING_CAUTIONS.map((c) => `• ${c}`), x, 69, 3, 4.3),
     text(`${layout.cardId} · sheet 2 of 2`, x, layout.bladeZone.yMm - 4, 2.6, { grey: SOFT }),
     {
       kind: 'line', from: [cut, 0], to: [cut, sheet.heightMm], widthMm: 0.2, grey: INK, dashMm: [3, 2],
