@@ -47,5 +47,6 @@ export async function attentionList(ctx: Ctx, user: AuthUser, now = Date.now()):
   const items = loaded
     .map((x) => itemFor(x, loaded.find((y) => y.blade.pairId === x.blade.pairId && y.blade.id !== x.blade.id), now))
     .filter((i): i is AttentionItem => i !== null)
-  return items.sort((a, b) => b.level - a.level || a.skater.localeCompare(b.skater) || a.side.localeCompare(b.side))
+  // Most urgent level first; within a level, the blade with more reasons is further from right.
+  return items.sort((a, b) => b.level - a.level || b.reasons.length - a.reasons.length || a.skater.localeCompare(b.skater) || a.side.localeCompare(b.side))
 }
