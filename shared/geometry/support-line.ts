@@ -18,7 +18,8 @@ export interface SupportHull {
 /**
  * Finds the support line L on an edge in a y-up frame with the toe toward −x (mm): the longest edge of the lower
  * convex hull in front of the rocker's lowest point. Its front end is the base pick tip B, its rear end the
- * provisional touch point. Throws BLADE_CUT_OFF when no such bridge exists (no toe picks in the edge).
+ * provisional touch point. Throws BLADE_CUT_OFF when no such bridge exists (no toe picks in the edge), and
+ * BLADE_NOT_FOUND when the bridge does not start at a tooth tip (the trace lost the base pick).
  */
 export function findSupportHull(work: readonly Vec2[]): SupportHull {
   const xs = work.map((p) => p[0])
