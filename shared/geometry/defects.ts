@@ -1,6 +1,7 @@
 import { prattAlgebraic } from './circle-fit'
 import { signedCurvature } from './circle-geometric'
 import { fitWindow, slice } from './radius-profile'
+import { curvatureSigma } from './uncertainty'
 import type { Vec2 } from './vec'
 import { radToDeg } from './vec'
 
@@ -8,12 +9,28 @@ import { radToDeg } from './vec'
 export const FLAT_CURVATURE = 1e-4
 export const FLAT_MIN_LENGTH_MM = 10
 /**
- * Window of the flat-spot scan (mm). A 10 mm window cannot tell 10 m from 2 m under pixel noise (the sag is
- * 1.25 µm), so we scan 20 mm windows every 1 mm and report each run widened by a quarter window on each side,
- * which recovers a flat's true extent to about ±2 mm on a 2 m rocker. The scan uses Pratt's algebraic fit, which on
- * arcs this flat agrees with the geometric fit far inside the noise and costs a tenth as much.
+ * Shortest window of the flat-spot scan (mm). A 10 mm window cannot tell 10 m from 2 m under pixel noise (the sag
+ * is 1.25 µm), so we scan windows of 20 mm or more every 1 mm and report each run widened by a quarter window on
+ * each side, which recovers a flat's true extent to about ±2 mm on a 2 m rocker with 20 mm windows. The scan uses
+ * Pratt's algebraic fit, which on arcs this flat agrees with the geometric fit far inside the noise and costs a
+ * tenth as much.
  */
 export const FLAT_WINDOW_MM = 20
+/** Longest scan window: the radius profile's own 40 mm. */
+export const FLAT_WINDOW_MAX_MM = 40
+
+/**
+ * Scan window for flat spots on this edge: the shortest from 20 to 40 mm (2 mm steps) over which a window's
+ * curvature noise is at most a third of the 1e-4 /mm flat threshold, so noise alone does not read as a flat.
+ * Null when even 40 mm is too noisy: flat spots cannot be told on this edge. averagingSigmaMm as in NoiseModel.
+ */
+export function flatScanWindow(rocker: readonly Vec2[], averagingSigmaMm: number): number | null {
+  if (rocker.length < 2) return null
+  const spacing = Math.max((rocker[rocker.length - 1][0] - rocker[0][0]) / (rocker.length - 1), 1e-3)
+  for (let w = FLAT_WINDOW_MM; w <= FLAT_WINDOW_MAX_MM; w += 2)
+    if (curvatureSigma(averagingSigmaMm, w / spacing, w) <= FLAT_CURVATURE / 3) return w
+  return null
+}
 
 export interface FlatSpot {
   fromAlongMm: number
@@ -21,8 +38,14 @@ export interface FlatSpot {
   radiusMm: number | null
 }
 
-export function findFlatSpots(rocker: readonly Vec2[], startX: number, endX: number): FlatSpot[] {
-  const half = FLAT_WINDOW_MM / 2
+/**
+ * Flat spots on a rocker (blade frame, sorted by x, from startX to endX): runs of scan windows (flatScanWindow)
+ * whose curvature is under 1e-4 /mm, or hollowed, spanning 10 mm or more; each with the radius fitted over it.
+ */
+export function findFlatSpots(rocker: readonly Vec2[], startX: number, endX: number, averagingSigmaMm = 0): FlatSpot[] {
+  const window = flatScanWindow(rocker, averagingSigmaMm)
+  if (window === null) return []
+  const half = window / 2
   const runs: [number, number][] = []
   let runStart: number | null = null
   let last = 0

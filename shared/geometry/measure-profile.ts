@@ -153,7 +153,7 @@ export function measureProfile(input: ProfileInput): ProfileMeasurement {
     },
     radiusProfile: profile.map(({ alongMm, curvaturePerMm, radiusMm }) => ({ alongMm, curvaturePerMm, radiusMm })),
     sectionRadii: sectionRadii(r.rocker, r.startX, support.touchPointMm, r.endX),
-    flatSpots: findFlatSpots(r.rocker, r.startX, r.endX),
+    flatSpots: findFlatSpots(r.rocker, r.startX, r.endX, averagingSigma),
     kinks: findKinks(r.rocker, r.startX, r.endX, curvatureLookup(profile, radiusT), averagingSigma),
     landmarks: landmarks(support, heel),
     warnings: warningsFor(input, blade, radiusT, station.unreachable),

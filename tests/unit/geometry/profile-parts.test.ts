@@ -9,11 +9,11 @@ import {
   rockerStartIndex,
 } from '../../../shared/geometry/heel'
 import { fitWindow, radiusProfile, sectionRadii, slice } from '../../../shared/geometry/radius-profile'
-import { findFlatSpots, findKinks } from '../../../shared/geometry/defects'
+import { findFlatSpots, findKinks, flatScanWindow } from '../../../shared/geometry/defects'
 import { geometricFit } from '../../../shared/geometry/circle-geometric'
 import { ProfileError } from '../../../shared/geometry/profile-error'
 import type { Vec2 } from '../../../shared/geometry/vec'
-import { withNoise } from './helpers'
+import { withNoise, withSmoothedNoise } from './helpers'
 
 /** Lower arc of a circle of radius r touching y = 0 at x = x0, sampled every step mm over [from, to]. */
 function arc(r: number, x0: number, from: number, to: number, step = 0.1): Vec2[] {
@@ -176,8 +176,20 @@ describe('flat spots and kinks', () => {
     expect(spots[0].radiusMm === null || spots[0].radiusMm > 10_000).toBe(true)
   })
 
-  it('finds no flat spot on a clean 2.4 m rocker with pixel noise', () => {
-    expect(findFlatSpots(withNoise(arc(2400, 40, 0, 250), 0.01, 4), 0, 250)).toEqual([])
+  it('finds no flat spot on a clean 2.4 m rocker with pixel noise, smoothed or not', () => {
+    expect(findFlatSpots(withNoise(arc(2400, 40, 0, 250), 0.01, 4), 0, 250, 0.01)).toEqual([])
+    // A 5-point smoothed trace: per-point scatter ~0.02 mm but averages behave as 0.044 mm (σ·√τ).
+    for (const seed of [1, 2, 3, 4, 5]) {
+      const noisy = withSmoothedNoise(arc(2400, 40, 0, 250), 0.044, 5, seed)
+      expect(findFlatSpots(noisy, 0, 250, 0.044)).toEqual([])
+    }
+  })
+
+  it('widens the scan window with the noise and gives up when even 40 mm cannot tell a flat', () => {
+    const rocker = arc(2000, 40, 0, 250)
+    expect(flatScanWindow(rocker, 0.005)).toBe(20)
+    expect(flatScanWindow(rocker, 0.03)).toBeGreaterThan(20)
+    expect(flatScanWindow(rocker, 0.2)).toBeNull()
   })
 
   it('finds a 2° kink and reports its size net of the trend', () => {
