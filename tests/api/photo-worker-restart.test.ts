@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { createApp } from '../../server/app'
 import { QueueService } from '../../server/queue/queue.service'
-import { generatedPhoto } from '../factories/photos'
+import { measurablePhoto } from '../factories/photos'
 import { skaterWithPair } from '../factories/records'
 import { signedInAs } from '../support/accounts'
 import { createTestContext } from '../support/test-context'
@@ -38,7 +38,7 @@ describe('a worker killed mid-job', () => {
   it('is taken up again after the job expires and ends measured, once', async () => {
     const app = createApp(ctx)
     // 12 MP so the analysis runs long enough to be caught running.
-    const [photo, first] = await Promise.all([generatedPhoto(3, { frontal: true, discipline: 'freestyle', resolution: '12mp' }), startWorker(ctx)])
+    const [photo, first] = await Promise.all([measurablePhoto({ resolution: '12mp' }), startWorker(ctx)])
     workers.push(first)
     const owner = await signedInAs(app, ctx, ['skater'])
     const ids = await skaterWithPair(owner.client, { sizeIn: photo.scene.blade.nominalSizeIn, discipline: 'freestyle' })

@@ -6,7 +6,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { createApp } from '../../server/app'
 import { analysisSchema, type AnalysisDto } from '../../shared/schemas/analyses'
 import { analyzePhoto } from '../../workers/engine/analyze'
-import { generatedPhoto, jpegWithExif, pngBomb } from '../factories/photos'
+import { generatedPhoto, jpegWithExif, measurablePhoto, pngBomb } from '../factories/photos'
 import { skaterWithPair } from '../factories/records'
 import { signedInAs, waitForMail } from '../support/accounts'
 import { waitForAnalysis } from '../support/analyses'
@@ -24,7 +24,7 @@ describe('photo upload → queue → worker → analysis', () => {
   beforeAll(async () => {
     ctx = await createTestContext()
     app = createApp(ctx)
-    ;[worker, photo] = await Promise.all([startWorker(ctx), generatedPhoto(3, { frontal: true, discipline: 'freestyle' })])
+    ;[worker, photo] = await Promise.all([startWorker(ctx), measurablePhoto()])
     owner = await signedInAs(app, ctx, ['skater'], { label: 'owner' })
     ids = await skaterWithPair(owner.client, { sizeIn: photo.scene.blade.nominalSizeIn, discipline: photo.scene.blade.discipline })
   })

@@ -1,7 +1,7 @@
 import { randomBytes } from 'node:crypto'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { AnalysisDto } from '../../shared/schemas/analyses'
-import { generatedPhoto } from '../factories/photos'
+import { measurablePhoto } from '../factories/photos'
 import { baseUrl, launchBrowser } from '../support/browser'
 import { api, createVerifiedPerson, signInPage, waitForMailTo } from '../support/e2e-people'
 
@@ -12,11 +12,11 @@ const coachEmail = `coach-${tag}@example.test`
 describe('a blade photo from upload to annotated measurement, in a real browser', () => {
   let skaterBrowser: Awaited<ReturnType<typeof launchBrowser>>
   let coachBrowser: Awaited<ReturnType<typeof launchBrowser>>
-  let photo: Awaited<ReturnType<typeof generatedPhoto>>
+  let photo: Awaited<ReturnType<typeof measurablePhoto>>
 
   beforeAll(async () => {
     ;[skaterBrowser, coachBrowser, photo] = await Promise.all([
-      launchBrowser(), launchBrowser(), generatedPhoto(3, { frontal: true, discipline: 'freestyle' }),
+      launchBrowser(), launchBrowser(), measurablePhoto(),
     ])
     await createVerifiedPerson(skaterEmail, 'Skater Runa', { skates: true, coaches: false })
     await createVerifiedPerson(coachEmail, 'Coach Tove', { skates: false, coaches: true })
