@@ -51,7 +51,9 @@ function baselineSection(doc: Doc, base: MeasuredAnalysis, current: MeasuredAnal
   const removed = cmp.steelRemoved.filter((s) => s.removedMm !== null).map((s): [number, number] => [s.alongMm, s.removedMm!])
   if (removed.length) {
     const values = removed.map((p) => p[1])
-    paragraph(doc, `Steel removed along the rocker: ${Math.min(...values).toFixed(2)} to ${Math.max(...values).toFixed(2)} mm (registered on the toe-pick teeth; RMS ${cmp.registration.rmsMm.toFixed(3)} mm).`)
+    const pms = cmp.steelRemoved.map((st) => st.plusMinusMm).filter((v): v is number => v !== null && Number.isFinite(v))
+    const pm = pms.length ? `, each within ± ${Math.min(...pms).toFixed(2)} to ${Math.max(...pms).toFixed(2)} mm` : ''
+    paragraph(doc, `Steel removed along the rocker: ${Math.min(...values).toFixed(2)} to ${Math.max(...values).toFixed(2)} mm${pm} (registered on the toe-pick teeth; RMS ${cmp.registration.rmsMm.toFixed(3)} mm).`)
     lineChart(doc, { series: [{ points: removed, colour: INK, label: 'steel removed, mm, against mm behind the base pick' }], heightPt: 70, yZeroLine: true, caption: 'Steel removed since the baseline.' })
   }
 }

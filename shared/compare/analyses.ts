@@ -1,5 +1,6 @@
-import { compareProfiles, type ComparableProfile } from '../geometry/comparison'
+import { compareProfiles, pickTeeth, type ComparableProfile } from '../geometry/comparison'
 import { bladeFrameFromCard, cardToBlade } from '../geometry/frames'
+import { inverse } from '../geometry/linalg'
 import { applySimilarity } from '../geometry/registration'
 import type { Vec2 } from '../geometry/vec'
 import type { AnalysisResult } from '../schemas/analysis'
@@ -74,8 +75,11 @@ export interface AnalysisComparison {
   registration: { on: string[]; rmsMm: number; rotationDeg: number; shiftMm: [number, number] }
   /** Both edges in the first analysis's blade frame (mm, x from B toward the heel, y up), about 1 point per mm. */
   overlay: { first: Vec2[]; second: Vec2[] }
-  /** Steel removed from the first to the second, every 10 mm along the rocker (mm, + = removed). */
-  steelRemoved: { alongMm: number; removedMm: number | null }[]
+  /**
+   * Steel removed from the first to the second, every 10 mm along the rocker (mm, + = removed), with its ± (mm,
+   * about 95 %) from the registration's residual on the teeth and the two edges' noise; insideNoise when |removed| ≤ ±.
+   */
+  steelRemoved: { alongMm: number; removedMm: number | null; plusMinusMm: number | null; insideNoise: boolean | null }[]
   changes: MetricChange[]
 }
 
@@ -89,6 +93,7 @@ export function compareAnalyses(first: AnalysisResult, second: AnalysisResult): 
   const b = comparableFromResult(second)
   const cmp = compareProfiles(a, b)
   const t = cmp.registration.transform
+  const removedPlusMinus = steelRemovedPlusMinus(a, cmp.registration.rmsMm, [first.quality.edgeResidualMm, second.quality.edgeResidualMm])
   return {
     registration: {
       on: ['toe-pick teeth'],
@@ -97,7 +102,59 @@ export function compareAnalyses(first: AnalysisResult, second: AnalysisResult): 
       shiftMm: [t.tx, t.ty],
     },
     overlay: { first: thinAlong(a.bladeMm, 1), second: thinAlong(b.bladeMm.map((p) => applySimilarity(t, p)), 1) },
-    steelRemoved: cmp.steelRemoved,
+    steelRemoved: cmp.steelRemoved.map((st) => {
+      const pm = removedPlusMinus(st.alongMm)
+      return { ...st, plusMinusMm: st.removedMm === null ? null : pm, insideNoise: st.removedMm === null ? null : Math.abs(st.removedMm) <= pm }
+    }),
     changes: metricChanges(first, second),
+  }
+}
+
+/** Points about spacingMm apart along a polyline, as the registration thins the teeth. */
+function spaced(points: readonly Vec2[], spacingMm: number): Vec2[] {
+  const out: Vec2[] = []
+  for (const p of points) if (!out.length || Math.hypot(p[0] - out[out.length - 1][0], p[1] - out[out.length - 1][1]) >= spacingMm) out.push(p)
+  return out
+}
+
+/** Coverage factor of the ± (about 95 % for a normal error), as elsewhere in the product. */
+const COVERAGE = 2
+
+/**
+ * Covariance (per unit residual variance) of the rigid motion [θ, tx, ty] the point-to-line registration fits on
+ * the teeth: (JᵀJ)⁻¹ with one row [n·(−dy, dx), nx, ny] per point, n its edge normal, (dx, dy) its offset from the
+ * teeth's centroid. Vertical tooth faces pin the shift along the blade but say little about the tilt.
+ */
+function registrationCovariance(teeth: readonly Vec2[]): { cov: number[][]; cx: number } | null {
+  const cx = teeth.reduce((s, p) => s + p[0], 0) / teeth.length
+  const cy = teeth.reduce((s, p) => s + p[1], 0) / teeth.length
+  const jtj = [[0, 0, 0], [0, 0, 0], [0, 0, 0]]
+  for (let i = 1; i + 1 < teeth.length; i++) {
+    const [tx, ty] = [teeth[i + 1][0] - teeth[i - 1][0], teeth[i + 1][1] - teeth[i - 1][1]]
+    const len = Math.hypot(tx, ty) || 1
+    const [nx, ny] = [-ty / len, tx / len]
+    const [dx, dy] = [teeth[i][0] - cx, teeth[i][1] - cy]
+    const row = [nx * -dy + ny * dx, nx, ny]
+    for (let a = 0; a < 3; a++) for (let b = 0; b < 3; b++) jtj[a][b] += row[a] * row[b]
+  }
+  const cov = inverse(jtj)
+  return cov ? { cov, cx } : null
+}
+
+/**
+ * The ± of the steel removed at a station x (mm): the registration's error (its RMS residual on the teeth through
+ * the covariance above: a small turn θ and shift t move a rocker point at x by θ·(x − cx) + ty) and each edge's own
+ * height noise, averaged over the ±1 mm window. A first-order error budget, checked by simulation in the tests.
+ */
+function steelRemovedPlusMinus(a: ComparableProfile, rmsMm: number, edgeResidualsMm: [number, number]): (x: number) => number {
+  const reg = registrationCovariance(spaced(pickTeeth(a), 0.5))
+  const spacing = a.bladeMm.length > 1 ? Math.max(1e-3, Math.abs(a.bladeMm[a.bladeMm.length - 1][0] - a.bladeMm[0][0]) / (a.bladeMm.length - 1)) : 1
+  const heights = Math.hypot(...edgeResidualsMm) / Math.sqrt(Math.max(1, 2 / spacing))
+  return (x) => {
+    if (!reg) return Infinity
+    const g = [x - reg.cx, 0, 1]
+    let v = 0
+    for (let i = 0; i < 3; i++) for (let j = 0; j < 3; j++) v += g[i] * reg.cov[i][j] * g[j]
+    return COVERAGE * Math.hypot(rmsMm * Math.sqrt(Math.max(0, v)), heights)
   }
 }

@@ -29,7 +29,12 @@ export const comparisonSchema = z.object({
     shiftMm: vec,
   }),
   overlay: z.object({ first: z.array(vec), second: z.array(vec) }).describe('Both edges in the first blade frame, mm'),
-  steelRemoved: z.array(z.object({ alongMm: z.number(), removedMm: z.number().nullable() })),
+  steelRemoved: z.array(z.object({
+    alongMm: z.number(),
+    removedMm: z.number().nullable().describe('mm, + = removed'),
+    plusMinusMm: z.number().nullable().describe('± of the steel removed, mm (registration and edge noise, about 95 %)'),
+    insideNoise: z.boolean().nullable().describe('True when |removed| ≤ its ±'),
+  })),
   changes: z.array(metricChangeSchema),
   notes: z.array(z.string()).describe('What people should know when reading this comparison'),
 })
