@@ -113,7 +113,7 @@ const CORNER_REACH_MM = 1.4
 
 /** How far the edge search reaches into the steel and out of it, mm: past the widest shadow the runner casts. */
 const SEARCH_INSIDE_MM = 6
-const SEARCH_OUTSIDE_MM = 1.5
+const SEARCH_OUTSIDE_MM = 2.5
 
 function traceSamples(strip: Strip, sil: Silhouette): EdgeSample[] {
   const r = strip.pxPerMm
@@ -158,6 +158,7 @@ export function traceBlade(cv: Cv, img: GreyImage, cal: Calibration, zone: Blade
   const xs = samples.map((s) => s.p[0] / pxPerMm)
   if (samples.length < 100 || Math.max(...xs) - Math.min(...xs) < 150) throw new EngineRefusal('BLADE_NOT_FOUND', 'edge too short')
   const traced = dropStrayRuns(dropOutliers(samples.map((s) => stripToCard(strip, s.p[0], s.p[1])), 0.5, 0.03), 0.8, 12)
+  if (longestGapMm(traced) > MAX_EDGE_GAP_MM) throw new EngineRefusal('BLADE_NOT_FOUND', 'runner not told apart from the table')
   const toe = teethNear(traced, true, 45, 25, 0.5) >= teethNear(traced, false, 45, 25, 0.5) ? 'left' : 'right'
   const ordered = toe === 'left' ? traced : traced.reverse()
   const edge = sharpenCorners(startAtFirstTip(ordered, 0.5, TOE_PICK_ZONE_MM), TOE_PICK_ZONE_MM, CORNER_GAP_MM, CORNER_REACH_MM)
@@ -168,6 +169,15 @@ export function traceBlade(cv: Cv, img: GreyImage, cal: Calibration, zone: Blade
     coverage: samples.length / Math.max(1, Math.round(pathLengthMm(edge) / 0.25)),
     darkerSteel: sil.darker, pxPerMm,
   }
+}
+
+/** A gap this long in the traced edge means part of the runner could not be told apart from what is behind it, mm. */
+const MAX_EDGE_GAP_MM = 45
+
+function longestGapMm(edge: Pt[]): number {
+  let gap = 0
+  for (let i = 1; i < edge.length; i++) gap = Math.max(gap, Math.hypot(edge[i][0] - edge[i - 1][0], edge[i][1] - edge[i - 1][1]))
+  return gap
 }
 
 function pathLengthMm(edge: Pt[]): number {

@@ -89,6 +89,9 @@ export interface EdgeSample {
   sigma: number
 }
 
+/** Weakest gradient accepted where the table is behind the edge, grey levels per px (about 3 sigma of its noise). */
+const TABLE_MIN_GRADIENT = 4
+
 /** Options of the search across the edge: how far into the steel and out of it, px, and the steel's polarity. */
 export interface NormalSearch {
   insidePx: number
@@ -145,6 +148,21 @@ function innermostPeak(grad: Float64Array, polarity: 1 | -1 | 0): { at: number; 
   return null
 }
 
+/** Height of the step around a peak: mean brightness 2–4 px beyond it minus 2–4 px before it (clamped to the profile). */
+function localStep(profile: Float64Array, at: number): number {
+  const mean = (from: number, to: number) => {
+    let sum = 0
+    let n = 0
+    for (let k = Math.max(0, from); k <= Math.min(profile.length - 1, to); k++) {
+      sum += profile[k]
+      n++
+    }
+    return n ? sum / n : NaN
+  }
+  const k = Math.round(at)
+  return Math.abs(mean(k + 2, k + 4) - mean(k - 4, k - 2))
+}
+
 /**
  * Refines each point of a coarse edge along its outward normal: samples the strip across the edge, differentiates,
  * and fits a Gaussian to the steel-to-card gradient peak. Points with no clear peak are dropped.
@@ -174,10 +192,12 @@ export function refineAlongNormals(strip: Strip, coarse: Pt[], search: NormalSea
     const k0 = steelStart(profile, -from, (shade * (1 + search.steelRatio)) / 2, search.darker)
     const peak = innermostPeak(grad.subarray(k0), onTable ? 0 : sign)
     if (peak) peak.at += k0
-    if (!peak || !Number.isFinite(peak.value) || Math.abs(peak.value) < 0.08 * step) continue
+    // Steel against the table may differ from it by only a few grey levels: accept any clear peak there.
+    const floor = onTable ? Math.min(0.08 * step, TABLE_MIN_GRADIENT) : 0.08 * step
+    if (!peak || !Number.isFinite(peak.value) || Math.abs(peak.value) < floor) continue
     const s = from + peak.at
     const p: Pt = [coarse[i][0] + normal[0] * s, coarse[i][1] + normal[1] * s]
-    out.push({ p, strength: Math.abs(peak.value), sigma: step / (Math.abs(peak.value) * Math.sqrt(2 * Math.PI)) })
+    out.push({ p, strength: Math.abs(peak.value), sigma: localStep(profile, peak.at) / (Math.abs(peak.value) * Math.sqrt(2 * Math.PI)) })
   }
   return out
 }
