@@ -1,6 +1,7 @@
 import type { AppContext } from '../context'
 import { demoAccountsStep } from './demo-accounts'
 import { demoBladesStep } from './demo-blades'
+import { demoWearStep } from './demo-wear'
 
 /** One step of demo data: what it creates, and the sign-ins `npm start` prints for it. */
 export interface SeedStep {
@@ -10,7 +11,7 @@ export interface SeedStep {
 }
 
 /** The demo scenario's steps in order. Each runs once per database, recorded in `seed_runs`. */
-export const seedSteps: SeedStep[] = [demoAccountsStep, demoBladesStep]
+export const seedSteps: SeedStep[] = [demoAccountsStep, demoBladesStep, demoWearStep]
 
 /** Runs the steps not yet recorded. A step that fails is not recorded, so the next start tries it again. */
 export async function runSeeds(ctx: AppContext, steps: SeedStep[] = seedSteps): Promise<string[]> {
