@@ -163,6 +163,33 @@ function localStep(profile: Float64Array, at: number): number {
   return Math.abs(mean(k + 2, k + 4) - mean(k - 4, k - 2))
 }
 
+/** How close beyond an edge the card's bottom edge must come for the half-level rule, strip px. */
+const NEAR_TABLE_PX = 5
+
+/**
+ * Where the profile crosses the level half-way between the steel's brightness (measured just inside the edge) and the
+ * card's expected brightness, nearest to the gradient peak at `s` (px along the normal); null if it does not.
+ */
+function halfLevelCrossing(profile: Float64Array, from: number, s: number, steelGuess: number, card: number): number | null {
+  const k = Math.round(s - from)
+  let steel = 0
+  let n = 0
+  for (let j = Math.max(0, k - 6); j <= k - 3; j++) {
+    steel += profile[j]
+    n++
+  }
+  const level = ((n ? steel / n : steelGuess) + card) / 2
+  for (let d = 0; d <= 3; d++) {
+    for (const j of [k + d, k - d - 1]) {
+      if (j < 0 || j + 1 >= profile.length) continue
+      const [a, b] = [profile[j] - level, profile[j + 1] - level]
+      if (a === b || a * b > 0) continue
+      return from + j + a / (a - b)
+    }
+  }
+  return null
+}
+
 /**
  * Refines each point of a coarse edge along its outward normal: samples the strip across the edge, differentiates,
  * and fits a Gaussian to the steel-to-card gradient peak. Points with no clear peak are dropped.
@@ -195,7 +222,11 @@ export function refineAlongNormals(strip: Strip, coarse: Pt[], search: NormalSea
     // Steel against the table may differ from it by only a few grey levels: accept any clear peak there.
     const floor = onTable ? Math.min(0.08 * step, TABLE_MIN_GRADIENT) : 0.08 * step
     if (!peak || !Number.isFinite(peak.value) || Math.abs(peak.value) < floor) continue
-    const s = from + peak.at
+    let s = from + peak.at
+    // Just above the card's bottom edge, the card-to-table step that follows pulls a gradient peak toward the steel;
+    // the crossing of the level half-way between steel and card is much less affected, so it is used there.
+    const at = (d: number) => search.tableAt(coarse[i][0] + normal[0] * (s + d), coarse[i][1] + normal[1] * (s + d))
+    if (!at(0) && at(NEAR_TABLE_PX)) s = halfLevelCrossing(profile, from, s, shade * search.steelRatio, shade) ?? s
     const p: Pt = [coarse[i][0] + normal[0] * s, coarse[i][1] + normal[1] * s]
     out.push({ p, strength: Math.abs(peak.value), sigma: localStep(profile, peak.at) / (Math.abs(peak.value) * Math.sqrt(2 * Math.PI)) })
   }
