@@ -69,11 +69,18 @@ describe('targets, wear, comparison and exports on the Blade page, in a real bro
     // 39 + k against 37–43 mm: 1 more sharpening now.
     await page.waitForFunction(() => document.querySelector('figure[data-metric="touchPointMm"] figcaption')?.textContent?.includes('about 1 more sharpening inside 37–43 mm'))
 
+    const rows = page.locator('tr[data-history]')
+    expect(await rows.count()).toBe(4)
+    expect(await rows.first().textContent()).toMatch(/42\.0 ± 1\.2 mm.*near limit \(touch point\)/)
     await page.screenshot({ path: '/tmp/t6/blade-page.png', fullPage: true }).catch(() => undefined)
+    await rows.nth(2).getByRole('button', { name: 'Use as reference' }).click()
+    await page.waitForFunction(() => document.querySelector('[data-part="baseline"]')?.textContent?.includes('marked reference'))
+    expect(await page.locator('[data-part="baseline"]').textContent()).toContain('marked by Skater Wren')
     await page.getByRole('button', { name: 'Now vs baseline' }).click()
     await page.waitForURL(/\/compare\?blade=/)
     await page.getByText('What changed').waitFor()
-    expect(await page.locator('tr[data-change="touchPointMm"]').textContent()).toMatch(/\+3\.00 ± 1\.70 mm.*a measurable change/)
+    // The marked reference (40 mm) against now (42 mm): +2 mm, with ± √2 × 1.2 = 1.70 mm.
+    expect(await page.locator('tr[data-change="touchPointMm"]').textContent()).toMatch(/\+2\.00 ± 1\.70 mm.*a measurable change/)
     expect(await page.locator('tr[data-change="middleRadiusMm"]').textContent()).toContain('inside the noise')
     expect(await page.locator('.compare').textContent()).toContain('Steel removed along the blade')
     await page.screenshot({ path: '/tmp/t6/compare-baseline.png', fullPage: true }).catch(() => undefined)
