@@ -13,21 +13,6 @@ function chordDistance(p: Pt, a: Pt, b: Pt): number {
   return Math.abs((b[0] - a[0]) * (p[1] - a[1]) - (b[1] - a[1]) * (p[0] - a[0])) / len
 }
 
-/** Drops points that step backwards along the edge (normals crossing at a concave corner reorder them). */
-export function dropBacksteps(pts: Pt[]): Pt[] {
-  const out: Pt[] = []
-  for (const p of pts) {
-    if (out.length >= 2) {
-      const a = out[out.length - 2]
-      const b = out[out.length - 1]
-      const along = (b[0] - a[0]) * (p[0] - b[0]) + (b[1] - a[1]) * (p[1] - b[1])
-      if (along < 0) continue
-    }
-    out.push(p)
-  }
-  return out
-}
-
 /**
  * Drops isolated outliers: a point is kept when its distance from the chord of its neighbours about `halfMm` away
  * is not far beyond what its own neighbourhood shows (so corners, where every point bends, survive).
