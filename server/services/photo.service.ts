@@ -32,7 +32,7 @@ const HEIC_MESSAGE =
   'Most Compatible and take the photo again, or export it as JPEG, then upload the JPEG.'
 const UNREADABLE_MESSAGE = 'This file is not a photo Rockerbook can read. Send a JPEG, PNG or WebP photo.'
 
-async function sniff(buffer: Buffer): Promise<{ format: Format; width: number; height: number }> {
+async function sniff(buffer: Buffer): Promise<{ format: Format; width: number; height: number; orientation: number }> {
   if (!buffer.length) throw new InvalidError('The file is empty. Choose the photo again and resend it.', undefined, 'EMPTY_FILE')
   const meta = await sharp(buffer, { limitInputPixels: false }).metadata().catch(() => {
     throw new UnsupportedMediaError(UNREADABLE_MESSAGE)
@@ -45,24 +45,55 @@ async function sniff(buffer: Buffer): Promise<{ format: Format; width: number; h
     throw new PayloadTooLargeError(
       `This image has ${mp} megapixels; Rockerbook accepts up to ${MAX_PIXELS / 1e6}. Send the photo as the camera took it.`)
   }
-  return { format: meta.format as Format, width: meta.width, height: meta.height }
+  return { format: meta.format as Format, width: meta.width, height: meta.height, orientation: meta.orientation ?? 1 }
+}
+
+const DAMAGED_MESSAGE = 'The photo file is incomplete or damaged. Send it again, or take a new photo.'
+
+/**
+ * Drops every APPn segment but JFIF (APP0) and the colour profile (APP2 ICC_PROFILE), and comments, from a JPEG:
+ * EXIF, GPS and XMP go, the compressed image data stays byte for byte. Layout per ITU-T T.81 (JPEG) annex B.
+ */
+export function stripJpegMetadata(jpeg: Buffer): Buffer {
+  const parts: Buffer[] = [jpeg.subarray(0, 2)]
+  let i = 2
+  while (i + 4 <= jpeg.length && jpeg[i] === 0xff) {
+    const marker = jpeg[i + 1]
+    if (marker === 0xda) break
+    const end = i + 2 + jpeg.readUInt16BE(i + 2)
+    const icc = marker === 0xe2 && jpeg.subarray(i + 4, i + 15).toString('latin1') === 'ICC_PROFILE'
+    const metadata = (marker >= 0xe1 && marker <= 0xef && !icc) || marker === 0xfe
+    if (!metadata) parts.push(jpeg.subarray(i, end))
+    i = end
+  }
+  parts.push(jpeg.subarray(i))
+  return Buffer.concat(parts)
 }
 
 /**
- * Checks what the bytes really are, decodes them fully (a truncated file fails here, not in the worker), turns the
- * image upright by its EXIF orientation and re-encodes it without any metadata, so no location leaves the upload.
+ * Checks what the bytes really are and decodes them fully (a truncated file fails here, not in the worker), then
+ * stores them without metadata, so no location leaves the upload. An upright JPEG keeps its compressed data as
+ * sent, so the engine measures the camera's own pixels; anything else is turned by its EXIF orientation and
+ * re-encoded without metadata.
  */
 export async function preparePhoto(buffer: Buffer): Promise<PreparedPhoto> {
-  const { format } = await sniff(buffer)
-  const pipeline = sharp(buffer, { failOn: 'truncated', limitInputPixels: MAX_PIXELS }).rotate()
+  const { format, width, height, orientation } = await sniff(buffer)
+  const decoder = () => sharp(buffer, { failOn: 'truncated', limitInputPixels: MAX_PIXELS })
+  await decoder().raw().toBuffer().catch(() => {
+    throw new InvalidError(DAMAGED_MESSAGE, undefined, 'DAMAGED_IMAGE')
+  })
+  if (format === 'jpeg' && orientation === 1) {
+    const data = stripJpegMetadata(buffer)
+    return { data, sha256: sha256(data), ...FORMATS.jpeg, width, height }
+  }
+  const pipeline = decoder().rotate()
   const encoded = format === 'jpeg' ? pipeline.jpeg({ quality: 95, chromaSubsampling: '4:4:4' })
     : format === 'png' ? pipeline.png() : pipeline.webp({ lossless: true })
-  const { data, info } = await encoded.toBuffer({ resolveWithObject: true }).catch(() => {
-    throw new InvalidError('The photo file is incomplete or damaged. Send it again, or take a new photo.', undefined, 'DAMAGED_IMAGE')
-  })
-  const sha256 = createHash('sha256').update(data).digest('hex')
-  return { data, sha256, ...FORMATS[format], width: info.width, height: info.height }
+  const { data, info } = await encoded.toBuffer({ resolveWithObject: true })
+  return { data, sha256: sha256(data), ...FORMATS[format], width: info.width, height: info.height }
 }
+
+const sha256 = (data: Buffer) => createHash('sha256').update(data).digest('hex')
 
 /** Content-addressed: the same stored bytes always land under the same key, so a retried upload writes nothing new. */
 export function photoKey(photo: Pick<PreparedPhoto, 'sha256' | 'ext'>): string {

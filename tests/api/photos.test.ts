@@ -19,14 +19,14 @@ describe('photo upload → queue → worker → analysis', () => {
   let worker: WorkerProcess
   let owner: Awaited<ReturnType<typeof signedInAs>>
   let ids: Awaited<ReturnType<typeof skaterWithPair>>
-  let photo: Awaited<ReturnType<typeof generatedPhoto>>
+  let noCard: Awaited<ReturnType<typeof generatedPhoto>>
 
   beforeAll(async () => {
     ctx = await createTestContext()
     app = createApp(ctx)
-    ;[worker, photo] = await Promise.all([startWorker(ctx), measurablePhoto()])
+    ;[worker, noCard] = await Promise.all([startWorker(ctx), generatedPhoto(5, { refusal: 'no-card' })])
     owner = await signedInAs(app, ctx, ['skater'], { label: 'owner' })
-    ids = await skaterWithPair(owner.client, { sizeIn: photo.scene.blade.nominalSizeIn, discipline: photo.scene.blade.discipline })
+    ids = await skaterWithPair(owner.client)
   })
   afterAll(async () => {
     await worker?.stop()
@@ -34,9 +34,12 @@ describe('photo upload → queue → worker → analysis', () => {
   })
 
   let measured: AnalysisDto
+  let measuredIds: Awaited<ReturnType<typeof skaterWithPair>>
 
   it('measures a generated photo: 202, queued, then measured with the engine\'s numbers on the stored photo', async () => {
-    const res = await owner.client.post(`/api/blades/${ids.leftId}/photos`).attach('photo', photo.jpeg, 'blade.jpg').expect(202)
+    const photo = await measurablePhoto()
+    measuredIds = await skaterWithPair(owner.client, { sizeIn: photo.scene.blade.nominalSizeIn, discipline: photo.scene.blade.discipline })
+    const res = await owner.client.post(`/api/blades/${measuredIds.leftId}/photos`).attach('photo', photo.jpeg, 'blade.jpg').expect(202)
     expect(Object.keys(res.body)).toEqual(['analysisId'])
     measured = await waitForAnalysis(owner.client, res.body.analysisId, ['measured', 'refused', 'failed'])
     expect(measured.error).toBeNull()
@@ -50,16 +53,18 @@ describe('photo upload → queue → worker → analysis', () => {
     expect(direct.ok).toBe(true)
     if (direct.ok) expect(measured.result!.touchPointMm).toBeCloseTo(direct.result.touchPointMm, 6)
     expect(measured.durationMs).toBeGreaterThan(0)
-  })
+  }, 300_000)
 
   it('records a refusal with its code and what to do', async () => {
-    const noCard = await generatedPhoto(5, { refusal: 'no-card' })
     const res = await owner.client.post(`/api/blades/${ids.rightId}/photos`).attach('photo', noCard.jpeg, 'blade.jpg').expect(202)
     const refused = await waitForAnalysis(owner.client, res.body.analysisId, ['measured', 'refused', 'failed'])
     expect(refused.status).toBe('refused')
     expect(refused.result).toBeNull()
-    expect(refused.error!.code).toBe('CARD_NOT_FOUND')
     expect(refused.error!.message.length).toBeGreaterThan(20)
+    // Recorded exactly as the engine refuses the stored photo.
+    const stored = await owner.client.get(`/api/analyses/${refused.id}/photo`).buffer(true).expect(200)
+    const direct = await analyzePhoto(Buffer.from(stored.body), { sizeIn: noCard.scene.blade.nominalSizeIn, discipline: noCard.scene.blade.discipline })
+    expect(direct.ok ? null : direct.error).toEqual(refused.error)
   })
 
   it('moves the heel end, recomputes from the stored edge, records who did it, and restores the detected one', async () => {
@@ -83,7 +88,7 @@ describe('photo upload → queue → worker → analysis', () => {
 
   it('lets a coach pin a note and mails the skater; replies and resolving work', async () => {
     const coach = await signedInAs(app, ctx, ['coach'], { label: 'coach' })
-    const share = await owner.client.post(`/api/skaters/${ids.skaterId}/shares/coach`).send({ email: coach.email }).expect(201)
+    const share = await owner.client.post(`/api/skaters/${measuredIds.skaterId}/shares/coach`).send({ email: coach.email }).expect(201)
     await coach.client.post(`/api/shares/${share.body.id}/accept`).expect(200)
     const note = await coach.client.post(`/api/analyses/${measured.id}/annotations`)
       .send({ text: 'Heel looks flattened after the last sharpening', alongMm: 180 }).expect(201)
@@ -94,12 +99,12 @@ describe('photo upload → queue → worker → analysis', () => {
     await owner.client.patch(`/api/annotations/${note.body.id}`).send({ resolved: true }).expect(200)
     const list = await coach.client.get(`/api/analyses/${measured.id}/annotations`).expect(200)
     expect(list.body).toMatchObject([{ alongMm: 180, resolved: true, replies: [{ text: 'Will ask the shop' }] }])
-    await coach.client.post(`/api/blades/${ids.leftId}/photos`).attach('photo', photo.jpeg, 'blade.jpg').expect(404)
+    await coach.client.post(`/api/blades/${measuredIds.leftId}/photos`).attach('photo', noCard.jpeg, 'blade.jpg').expect(404)
   })
 
   it('answers 404 for another owner\'s blade and analysis, and 401 without a session', async () => {
     const other = await signedInAs(app, ctx, ['skater'], { label: 'other' })
-    await other.client.post(`/api/blades/${ids.leftId}/photos`).attach('photo', photo.jpeg, 'blade.jpg').expect(404)
+    await other.client.post(`/api/blades/${ids.leftId}/photos`).attach('photo', noCard.jpeg, 'blade.jpg').expect(404)
     await other.client.get(`/api/analyses/${measured.id}`).expect(404)
     await other.client.get(`/api/analyses/${measured.id}/photo`).expect(404)
     await other.client.put(`/api/analyses/${measured.id}/landmarks`).send({ heelEndAlongMm: 200 }).expect(404)
@@ -119,6 +124,19 @@ describe('photo upload → queue → worker → analysis', () => {
     expect(row.storage_key).toContain(row.sha256)
   })
 
+  it('keeps an upright JPEG\'s own pixels, dropping its EXIF but not its colour profile', async () => {
+    const upload = await sharp({ create: { width: 320, height: 240, channels: 3, background: '#808080', noise: { type: 'gaussian', mean: 128, sigma: 30 } } })
+      .withExif({ IFD0: { Make: 'Test camera' } }).withIccProfile('srgb').jpeg({ quality: 85 }).toBuffer()
+    const res = await owner.client.post(`/api/blades/${ids.rightId}/photos`).attach('photo', upload, 'phone.jpg').expect(202)
+    const stored = Buffer.from((await owner.client.get(`/api/analyses/${res.body.analysisId}/photo`).buffer(true).expect(200)).body)
+    const meta = await sharp(stored).metadata()
+    expect(meta.exif).toBeUndefined()
+    expect(meta.icc).toBeDefined()
+    // Decoded by sharp (libjpeg), an independent reader: the same pixels, so no re-encoding loss reaches the engine.
+    const [sent, kept] = await Promise.all([sharp(upload).raw().toBuffer(), sharp(stored).raw().toBuffer()])
+    expect(kept.equals(sent)).toBe(true)
+  })
+
   describe('bad uploads get a 4xx with a clear message and leave nothing behind', () => {
     const counts = async () => {
       const [{ photos, analyses }] = await ctx.db.query(
@@ -128,7 +146,7 @@ describe('photo upload → queue → worker → analysis', () => {
     const cases: [string, () => Promise<Buffer> | Buffer, number, RegExp][] = [
       ['an empty file', () => Buffer.alloc(0), 400, /empty/],
       ['a text file renamed .jpg', () => Buffer.from('This is a note, not a photo.\n'.repeat(20)), 415, /JPEG, PNG or WebP/],
-      ['a truncated JPEG', () => photo.jpeg.subarray(0, Math.floor(photo.jpeg.length / 2)), 400, /incomplete or damaged/],
+      ['a truncated JPEG', () => noCard.jpeg.subarray(0, Math.floor(noCard.jpeg.length / 2)), 400, /incomplete or damaged/],
       ['a 20000 × 20000 PNG', () => pngBomb(20_000, 20_000), 413, /megapixels/],
       ['a 30 MB file', () => Buffer.alloc(30 * 1024 * 1024, 0xff), 413, /larger than 25 MB/],
       ['an AVIF image', () => sharp({ create: { width: 40, height: 30, channels: 3, background: 'grey' } }).avif().toBuffer(), 415, /JPEG, PNG or WebP/],
