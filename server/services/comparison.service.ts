@@ -6,7 +6,9 @@ import { ConflictError, InvalidError } from '../errors'
 import type { AuthUser } from '../middleware/require-auth'
 import { analysisFor, bladeFor, pairFor, sharpeningFor } from './blade-access'
 import { baselineOf, measuredAnalyses, type MeasuredAnalysis } from './history.service'
+import { bladeTargets } from './target.service'
 import { compareAnalyses } from '../../shared/compare/analyses'
+import { readPair } from '../../shared/targets/readings'
 import type { AnalysisResult } from '../../shared/schemas/analysis'
 import type { ComparisonDto } from '../../shared/schemas/comparison'
 import type { Baseline } from '../../shared/schemas/history'
@@ -81,9 +83,15 @@ export async function comparePair(ctx: Ctx, user: AuthUser, pairId: string): Pro
     if (!blade || !list.length) throw new ConflictError(`The ${side} blade has no measured analysis yet.`)
     return [list[list.length - 1], blade]
   }
-  return build('pair', await latestOf('left'), await latestOf('right'), [
+  const [left, right] = [await latestOf('left'), await latestOf('right')]
+  const dto = build('pair', left, right, [
     'Left and right blades: each is read in its own blade frame, toe to heel, which mirrors one onto the other.',
   ])
+  const { resolved } = await bladeTargets(ctx, left[1], user)
+  const pairReadings = readPair(left[0].result, right[0].result, resolved).map((r) => ({
+    metric: r.metric as 'pairTouchPointDiffMm' | 'pairHeelLiftDiffMm', label: r.label, value: r.value, plusMinus: r.plusMinus, band: r.band, status: r.status,
+  }))
+  return { ...dto, pairReadings }
 }
 
 /** The analyses recorded before and after one sharpening. */

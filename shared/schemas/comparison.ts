@@ -37,6 +37,14 @@ export const comparisonSchema = z.object({
   })),
   changes: z.array(metricChangeSchema),
   notes: z.array(z.string()).describe('What people should know when reading this comparison'),
+  pairReadings: z.array(z.object({
+    metric: z.enum(['pairTouchPointDiffMm', 'pairHeelLiftDiffMm']),
+    label: z.string(),
+    value: z.number().describe('|left − right|, mm'),
+    plusMinus: z.number(),
+    band: z.object({ min: z.number().nullable(), max: z.number().nullable() }),
+    status: z.enum(['on target', 'near limit', 'off target']),
+  })).optional().describe('Left vs right against the pair targets (pair comparisons only)'),
 })
 
 export type ComparisonDto = z.infer<typeof comparisonSchema>

@@ -109,6 +109,10 @@ describe('history, wear, baseline, CSV and comparisons', () => {
     // Right blade: 0.2 mm removed; latest left: 0.4 mm. Right minus left is −0.2 mm along the blade.
     for (const s of pair.steelRemoved) if (s.removedMm !== null) expect(s.removedMm).toBeCloseTo(-0.2, 2)
     expect(pair.notes[0]).toMatch(/mirrors/)
+    // |46.4 − 43| = 3.4 mm against our left-vs-right rule of 3 mm (DESIGN.md §5): 0.4 mm over, beyond 10 % of 3 mm.
+    const tpDiff = pair.pairReadings!.find((r) => r.metric === 'pairTouchPointDiffMm')!
+    expect(tpDiff.value).toBeCloseTo(3.4, 9)
+    expect(tpDiff.status).toBe('off target')
   })
 
   it('compares before and after a sharpening, and lets a reference analysis be marked', async () => {

@@ -88,6 +88,8 @@ describe('targets, wear, comparison and exports on the Blade page, in a real bro
     await page.goto(`${baseUrl()}/compare?pair=${pair.id}`)
     await page.getByText('Left vs right').first().waitFor()
     expect(await page.locator('.notes').textContent()).toContain('mirrors one onto the other')
+    // |42 − 41| = 1 mm against our 3 mm left-vs-right rule (DESIGN.md §5).
+    expect(await page.locator('.pair-readings [role="img"]').first().getAttribute('aria-label')).toMatch(/^Touch point, left vs right 1\.0 ± 1\.7 mm, target under 3 mm: on target$/)
 
     const csv = await page.request.get(`${baseUrl()}/api/blades/${left}/history.csv`)
     expect((await csv.text()).split('\r\n')[0]).toMatch(/^date,skater,pair,blade_id,side,size_in,sharpenings_so_far,/)
