@@ -35,7 +35,11 @@ describe('a blade photo from upload to annotated measurement, in a real browser'
     })
     const left = pair.blades.find((b) => b.side === 'left')!.id
 
-    await page.goto(`${baseUrl()}/blades/${left}/capture`)
+    await page.goto(`${baseUrl()}/blades`)
+    await page.locator('[data-blade="Competition skates:left"]').click()
+    await page.getByRole('heading', { name: 'Left blade' }).waitFor()
+    await page.getByRole('button', { name: 'Measure with a photo' }).click()
+    await page.waitForURL(`${baseUrl()}/blades/${left}/capture`)
     await page.getByText('Print the scale card').waitFor()
     await page.locator('[data-photo-input]').setInputFiles({ name: 'blade.jpg', mimeType: 'image/jpeg', buffer: photo.jpeg })
     await page.waitForURL(/\/analyses\//)
