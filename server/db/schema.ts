@@ -12,6 +12,7 @@ import { Sharpening } from '../entities/sharpening.entity'
 import { SkatePair } from '../entities/skate-pair.entity'
 import { ShopInvitation } from '../entities/shop-invitation.entity'
 import { ShopMember } from '../entities/shop-member.entity'
+import { ShopWearSetting } from '../entities/shop-wear-setting.entity'
 import { Shop } from '../entities/shop.entity'
 import { SkaterProfile } from '../entities/skater-profile.entity'
 import { SkaterShare } from '../entities/skater-share.entity'
@@ -24,13 +25,14 @@ import { CreateBladeRecords1764660000000 } from '../migrations/1764660000000-Cre
 import { CreateTargetSettings1764670000000 } from '../migrations/1764670000000-CreateTargetSettings'
 import { CreateBladeBaselines1764670100000 } from '../migrations/1764670100000-CreateBladeBaselines'
 import { CreateReferenceProfiles1764670200000 } from '../migrations/1764670200000-CreateReferenceProfiles'
+import { CreateShopWearSettings1764670300000 } from '../migrations/1764670300000-CreateShopWearSettings'
 
 /**
  * Every entity and migration, imported explicitly: loading them by file glob bypasses the test runner's
  * TypeScript transform, and an explicit list shows in review what a change adds. Keep migrations in time order.
  */
 export const entities = [OutboundMail, Account, AuthSession, EmailToken, SkaterProfile, Shop, ShopMember, ShopInvitation, SkaterShare,
-  SkatePair, Blade, Photo, Analysis, Annotation, Sharpening, TargetSetting, BladeBaseline, ReferenceProfile]
+  SkatePair, Blade, Photo, Analysis, Annotation, Sharpening, TargetSetting, BladeBaseline, ReferenceProfile, ShopWearSetting]
 
 export const migrations = [
   CreateSeedRuns1764640000000,
@@ -41,4 +43,5 @@ export const migrations = [
   CreateTargetSettings1764670000000,
   CreateBladeBaselines1764670100000,
   CreateReferenceProfiles1764670200000,
+  CreateShopWearSettings1764670300000,
 ]

@@ -6,9 +6,9 @@ import { validate } from '../middleware/validate'
 import { assertSkaterAccess } from '../services/access.service'
 import { bladeFor } from '../services/blade-access'
 import {
-  bladeTargets, clearTarget, listLayer, setTarget, shopMembership, skaterAuthorRole,
+  bladeTargets, clearTarget, listLayer, setShopWear, setTarget, shopMembership, shopWear, skaterAuthorRole,
 } from '../services/target.service'
-import { setTargetSchema, targetMetricSchema } from '../../shared/schemas/targets'
+import { setShopWearSchema, setTargetSchema, targetMetricSchema } from '../../shared/schemas/targets'
 import type { TargetMetric } from '../../shared/targets/bands'
 
 const bladeParams = z.object({ bladeId: z.uuid() })
@@ -73,6 +73,16 @@ export function targetRoutes(ctx: AppContext): Router {
     await shopMembership(ctx, signedIn(req), p(req).shopId)
     await clearTarget(ctx, 'shop', p(req).shopId, p(req).metric as TargetMetric)
     res.status(204).end()
+  })
+
+  r.get('/shops/:shopId/wear-settings', requireAuth, validate({ params: shopParams }), async (req, res) => {
+    await shopMembership(ctx, signedIn(req), p(req).shopId)
+    res.json(await shopWear(ctx, p(req).shopId))
+  })
+  r.put('/shops/:shopId/wear-settings', requireAuth, validate({ params: shopParams, body: setShopWearSchema }), async (req, res) => {
+    const user = signedIn(req)
+    await shopMembership(ctx, user, p(req).shopId)
+    res.json(await setShopWear(ctx, p(req).shopId, req.body.minRunnerHeightMm, user))
   })
   return r
 }

@@ -6,7 +6,7 @@ import { Sharpening } from '../entities/sharpening.entity'
 import { SkatePair } from '../entities/skate-pair.entity'
 import { SkaterProfile } from '../entities/skater-profile.entity'
 import type { AuthUser } from '../middleware/require-auth'
-import { bladeTargets } from './target.service'
+import { bladeTargets, shopWear } from './target.service'
 import type { AnalysisResult } from '../../shared/schemas/analysis'
 import type { Baseline, BladeHistory, HistoryRow } from '../../shared/schemas/history'
 import { isHockeyGrind } from '../../shared/targets/bands'
@@ -68,7 +68,8 @@ async function namesOf(ctx: Ctx, blade: Blade) {
 export async function bladeHistory(ctx: Ctx, blade: Blade, user: AuthUser | null) {
   const analyses = await measuredAnalyses(ctx, blade.id)
   const sharpenings = await ctx.db.getRepository(Sharpening).find({ where: { bladeId: blade.id }, order: { sharpenedOn: 'ASC' } })
-  const { resolved } = await bladeTargets(ctx, blade, user)
+  const { resolved, shop } = await bladeTargets(ctx, blade, user)
+  const wearSettings = await shopWear(ctx, shop?.id ?? null)
   const baseline = await baselineOf(ctx, blade, analyses)
   const names = await namesOf(ctx, blade)
   const rows = analyses.map((a) => toRow(a, blade, names, sharpenings, resolved, baseline?.analysisId ?? null))
@@ -79,10 +80,12 @@ export async function bladeHistory(ctx: Ctx, blade: Blade, user: AuthUser | null
   const latest = analyses.length ? readAnalysis(analyses[analyses.length - 1].result, resolved).slice(0, 2) : []
   // Runner height needs the top edge, which the engine does not trace yet: the wear state can say re-profile only.
   const wear = assessWear({
-    rockerStatuses: latest.map((r) => r.status), runnerHeightMm: null, baselineRunnerHeightMm: null, steelRemovedMm: [], minRunnerHeightMm: null,
+    rockerStatuses: latest.map((r) => r.status), runnerHeightMm: null, baselineRunnerHeightMm: null, steelRemovedMm: [],
+    minRunnerHeightMm: wearSettings.minRunnerHeightMm,
   })
   const history: BladeHistory = {
     bladeId: blade.id, baseline, rows, projections, wear, wearRule: WEAR_RULE,
+    runnerHeight: { measured: false, minMm: wearSettings.minRunnerHeightMm, shop: shop?.name ?? null },
     sharpenings: sharpenings.map((s) => ({
       sharpenedOn: s.sharpenedOn,
       sharpeningsSoFar: sharpeningsAt({ id: '', takenOn: s.sharpenedOn }, sharpenings, blade.sharpeningsAtRegistration),

@@ -2,13 +2,14 @@ import type { AppContext } from '../context'
 import type { Blade } from '../entities/blade.entity'
 import { Shop } from '../entities/shop.entity'
 import { ShopMember } from '../entities/shop-member.entity'
+import { ShopWearSetting } from '../entities/shop-wear-setting.entity'
 import { TargetSetting } from '../entities/target-setting.entity'
 import { NotFoundError } from '../errors'
 import type { AuthUser } from '../middleware/require-auth'
 import { skaterRelation } from './access.service'
 import { TARGET_METRICS, type TargetMetric } from '../../shared/targets/bands'
 import { resolveTargets, type ResolvedTargets, type TargetLayerSettings } from '../../shared/targets/resolve'
-import type { BladeTargetsDto, SetTargetBody, TargetSettingDto } from '../../shared/schemas/targets'
+import type { BladeTargetsDto, SetTargetBody, ShopWearSettingsDto, TargetSettingDto } from '../../shared/schemas/targets'
 
 type Ctx = Pick<AppContext, 'db'>
 export type TargetScope = TargetSetting['scope']
@@ -87,7 +88,7 @@ export async function applicableShop(ctx: Ctx, skaterProfileId: string, user: Au
 }
 
 /** Every band that applies to a blade, layered platform < shop < skater < blade. */
-export async function bladeTargets(ctx: Ctx, blade: Blade, user: AuthUser | null): Promise<{ resolved: ResolvedTargets; dto: BladeTargetsDto }> {
+export async function bladeTargets(ctx: Ctx, blade: Blade, user: AuthUser | null): Promise<{ resolved: ResolvedTargets; dto: BladeTargetsDto; shop: Shop | null }> {
   const shop = await applicableShop(ctx, blade.skaterProfileId, user)
   const resolved = resolveTargets({
     blade: { sizeIn: blade.sizeIn },
@@ -100,5 +101,16 @@ export async function bladeTargets(ctx: Ctx, blade: Blade, user: AuthUser | null
     shop: shop ? { id: shop.id, name: shop.name } : null,
     targets: TARGET_METRICS.map((m) => ({ ...resolved[m], note: resolved[m].note ?? null })),
   }
-  return { resolved, dto }
+  return { resolved, dto, shop }
+}
+
+/** A shop's wear settings (the minimum runner height), or nulls when it has set none. */
+export async function shopWear(ctx: Ctx, shopId: string | null): Promise<ShopWearSettingsDto> {
+  const row = shopId ? await ctx.db.getRepository(ShopWearSetting).findOneBy({ shopId }) : null
+  return { minRunnerHeightMm: row?.minRunnerHeightMm ?? null, setBy: row?.setByName ?? null, setAt: row?.setAt.toISOString() ?? null }
+}
+
+export async function setShopWear(ctx: Ctx, shopId: string, minRunnerHeightMm: number, author: { name: string }): Promise<ShopWearSettingsDto> {
+  await ctx.db.getRepository(ShopWearSetting).save({ shopId, minRunnerHeightMm, setByName: author.name, setAt: new Date() })
+  return shopWear(ctx, shopId)
 }

@@ -104,6 +104,11 @@ export const bladeHistorySchema = z.object({
     heightAfterRestoreMm: z.number().nullable(),
   }),
   wearRule: z.string().describe('The rule the wear state follows, as the page states it'),
+  runnerHeight: z.object({
+    measured: z.boolean().describe('False until the engine traces the runner\u2019s top edge'),
+    minMm: z.number().nullable().describe('The applicable shop\u2019s minimum runner height, mm'),
+    shop: z.string().nullable(),
+  }),
   sharpenings: z.array(z.object({
     sharpenedOn: z.string(),
     sharpeningsSoFar: z.number().int(),

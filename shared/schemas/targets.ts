@@ -45,3 +45,13 @@ export type SetTargetBody = z.infer<typeof setTargetSchema>
 export type TargetSettingDto = z.infer<typeof targetSettingSchema>
 export type ResolvedTargetDto = z.infer<typeof resolvedTargetSchema>
 export type BladeTargetsDto = z.infer<typeof bladeTargetsSchema>
+
+/** A shop's wear settings; runner heights are in mm from the running surface to the runner's top edge. */
+export const shopWearSettingsSchema = z.object({
+  minRunnerHeightMm: z.number().min(5).max(60).nullable().describe('Replace at or below this runner height, mm; null when not set'),
+  setBy: z.string().nullable(),
+  setAt: z.string().nullable(),
+})
+export const setShopWearSchema = z.object({ minRunnerHeightMm: z.number().min(5).max(60).describe('mm') })
+
+export type ShopWearSettingsDto = z.infer<typeof shopWearSettingsSchema>

@@ -1,4 +1,4 @@
-import type { BladeTargetsDto, SetTargetBody, TargetSettingDto } from '../../shared/schemas/targets'
+import type { BladeTargetsDto, SetTargetBody, ShopWearSettingsDto, TargetSettingDto } from '../../shared/schemas/targets'
 import type { TargetMetric } from '../../shared/targets/bands'
 import { request } from './client'
 
@@ -16,3 +16,6 @@ export const clearSkaterTarget = (skaterId: string, metric: TargetMetric) =>
 export const listShopTargets = (shopId: string) => request<TargetSettingDto[]>(`/shops/${enc(shopId)}/targets`)
 export const setShopTarget = (shopId: string, metric: TargetMetric, body: SetTargetBody) =>
   request<TargetSettingDto>(`/shops/${enc(shopId)}/targets/${metric}`, { method: 'PUT', body })
+export const getShopWear = (shopId: string) => request<ShopWearSettingsDto>(`/shops/${enc(shopId)}/wear-settings`)
+export const setShopWear = (shopId: string, minRunnerHeightMm: number) =>
+  request<ShopWearSettingsDto>(`/shops/${enc(shopId)}/wear-settings`, { method: 'PUT', body: { minRunnerHeightMm } })

@@ -93,6 +93,23 @@ describe('target bands', () => {
     await other.client.get(`/api/shops/${shop.id}/targets`).expect(404)
   })
 
+  it('keeps a shop\u2019s minimum runner height for its members and shows it in the blade\u2019s history', async () => {
+    const shopAdmin = await signedInAs(app, ctx, [], { label: 'shopadmin' })
+    const shop = (await shopAdmin.client.post('/api/shops').send({ name: 'Height Grinders' }).expect(201)).body
+    expect((await shopAdmin.client.get(`/api/shops/${shop.id}/wear-settings`).expect(200)).body.minRunnerHeightMm).toBeNull()
+    const bad = await shopAdmin.client.put(`/api/shops/${shop.id}/wear-settings`).send({ minRunnerHeightMm: 1 }).expect(400)
+    expect(bad.body.error.details.map((d: { path: string }) => d.path)).toContain('minRunnerHeightMm')
+    const set = await shopAdmin.client.put(`/api/shops/${shop.id}/wear-settings`).send({ minRunnerHeightMm: 22.5 }).expect(200)
+    expect(set.body).toMatchObject({ minRunnerHeightMm: 22.5, setBy: 'Test shopadmin' })
+    const owner = await signedInAs(app, ctx, ['skater'])
+    const ids = await skaterWithPair(owner.client)
+    await owner.client.put(`/api/shops/${shop.id}/wear-settings`).send({ minRunnerHeightMm: 10 }).expect(404)
+    await owner.client.post(`/api/skaters/${ids.skaterId}/shares/shop`).send({ shopId: shop.id }).expect(201)
+    const h = (await owner.client.get(`/api/blades/${ids.leftId}/history`).expect(200)).body
+    expect(h.runnerHeight).toEqual({ measured: false, minMm: 22.5, shop: 'Height Grinders' })
+    await request(app).get(`/api/shops/${shop.id}/wear-settings`).expect(401)
+  })
+
   it('lets a shop\u2019s technician read the blade but not set the skater\u2019s preference', async () => {
     const owner = await signedInAs(app, ctx, ['skater'], { label: 'owner' })
     const ids = await skaterWithPair(owner.client)
