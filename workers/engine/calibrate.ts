@@ -1,6 +1,5 @@
-import type { Cv, Mat } from './opencv'
 import type { GreyImage } from './image'
-import { detectMarkers, type DetectedMarker } from './markers'
+import type { DetectedMarker } from './markers'
 import { refineMarkerCorners } from './subpixel'
 import { invert, rmsResidual, type Mat3, type Pt } from './projective'
 import { noDistortion, planePose, undistort, type Distortion, type PlanePose } from './camera'
@@ -111,8 +110,7 @@ function spansCard(m: Matched): boolean {
 }
 
 /** Finds the card, refines its marker corners, fits lens distortion, homography and camera pose. */
-export function calibrate(cv: Cv, img: GreyImage, reduced: Mat, scale: number, layouts: CardMarkers[]): Calibration {
-  const detected: DetectedMarker[] = detectMarkers(cv, reduced, scale)
+export function calibrate(img: GreyImage, detected: DetectedMarker[], scale: number, layouts: CardMarkers[]): Calibration {
   const window = Math.max(4, 2.5 / scale)
   const refined = detected
     .map((m) => ({ id: m.id, corners: refineMarkerCorners(img, m, window) }))

@@ -27,8 +27,11 @@ export function reduce(cv: Cv, full: Mat, maxSide: number): { mat: Mat; scale: n
   return { mat, scale }
 }
 
-/** Finds DICT_4X4_50 markers on a reduced image and returns their corners scaled back to full resolution. */
-export function detectMarkers(cv: Cv, reduced: Mat, scale: number): DetectedMarker[] {
+/**
+ * Finds DICT_4X4_50 markers on a reduced image and returns their corners scaled back to full resolution, with the
+ * number of square candidates the detector rejected (a blurred card still leaves many; a photo without one, few).
+ */
+export function detectMarkers(cv: Cv, reduced: Mat, scale: number): { markers: DetectedMarker[]; rejected: number } {
   return withMats((track) => {
     const dictionary = track(cv.getPredefinedDictionary(cv.DICT_4X4_50))
     const params = track(new cv.aruco_DetectorParameters())
@@ -47,6 +50,6 @@ export function detectMarkers(cv: Cv, reduced: Mat, scale: number): DetectedMark
       c.delete()
       found.push({ id: ids.data32S[i], corners: pts })
     }
-    return found
+    return { markers: found, rejected: rejected.size() as number }
   })
 }

@@ -30,7 +30,7 @@ describe('marker corners', () => {
       m.data.set(grey.data)
       const { mat, scale } = reduce(cv, m, 500)
       track(mat)
-      return detectMarkers(cv, mat, scale)
+      return detectMarkers(cv, mat, scale).markers
     })
     expect(found.map((f) => f.id).sort((a, b) => a - b)).toEqual([3, 17])
     for (const marker of found) {
