@@ -32,8 +32,17 @@ const HEIC_MESSAGE =
   'Most Compatible and take the photo again, or export it as JPEG, then upload the JPEG.'
 const UNREADABLE_MESSAGE = 'This file is not a photo Rockerbook can read. Send a JPEG, PNG or WebP photo.'
 
+/** Major brands of HEVC-coded HEIF files (ISO/IEC 23008-12), read from the leading `ftyp` box. */
+const HEIC_BRANDS = new Set(['heic', 'heix', 'hevc', 'hevx', 'heim', 'heis'])
+
+function isHeic(buffer: Buffer): boolean {
+  return buffer.length >= 12 && buffer.toString('latin1', 4, 8) === 'ftyp' && HEIC_BRANDS.has(buffer.toString('latin1', 8, 12))
+}
+
 async function sniff(buffer: Buffer): Promise<{ format: Format; width: number; height: number; orientation: number }> {
   if (!buffer.length) throw new InvalidError('The file is empty. Choose the photo again and resend it.', undefined, 'EMPTY_FILE')
+  // Checked before decoding: this build of sharp may not read HEVC at all, and the person still needs the advice.
+  if (isHeic(buffer)) throw new UnsupportedMediaError(HEIC_MESSAGE)
   const meta = await sharp(buffer, { limitInputPixels: false }).metadata().catch(() => {
     throw new UnsupportedMediaError(UNREADABLE_MESSAGE)
   })

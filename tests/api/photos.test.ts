@@ -34,6 +34,7 @@ describe('photo upload → queue → worker → analysis', () => {
   })
 
   let measured: AnalysisDto
+  let refusedId: string
   let measuredIds: Awaited<ReturnType<typeof skaterWithPair>>
 
   it('measures a generated photo: 202, queued, then measured with the engine\'s numbers on the stored photo', async () => {
@@ -58,6 +59,7 @@ describe('photo upload → queue → worker → analysis', () => {
   it('records a refusal with its code and what to do', async () => {
     const res = await owner.client.post(`/api/blades/${ids.rightId}/photos`).attach('photo', noCard.jpeg, 'blade.jpg').expect(202)
     const refused = await waitForAnalysis(owner.client, res.body.analysisId, ['measured', 'refused', 'failed'])
+    refusedId = refused.id
     expect(refused.status).toBe('refused')
     expect(refused.result).toBeNull()
     expect(refused.error!.message.length).toBeGreaterThan(20)
@@ -105,11 +107,11 @@ describe('photo upload → queue → worker → analysis', () => {
   it('answers 404 for another owner\'s blade and analysis, and 401 without a session', async () => {
     const other = await signedInAs(app, ctx, ['skater'], { label: 'other' })
     await other.client.post(`/api/blades/${ids.leftId}/photos`).attach('photo', noCard.jpeg, 'blade.jpg').expect(404)
-    await other.client.get(`/api/analyses/${measured.id}`).expect(404)
-    await other.client.get(`/api/analyses/${measured.id}/photo`).expect(404)
-    await other.client.put(`/api/analyses/${measured.id}/landmarks`).send({ heelEndAlongMm: 200 }).expect(404)
-    await other.client.post(`/api/analyses/${measured.id}/annotations`).send({ text: 'hi', alongMm: 3 }).expect(404)
-    await request(app).get(`/api/analyses/${measured.id}`).expect(401)
+    await other.client.get(`/api/analyses/${refusedId}`).expect(404)
+    await other.client.get(`/api/analyses/${refusedId}/photo`).expect(404)
+    await other.client.put(`/api/analyses/${refusedId}/landmarks`).send({ heelEndAlongMm: 200 }).expect(404)
+    await other.client.post(`/api/analyses/${refusedId}/annotations`).send({ text: 'hi', alongMm: 3 }).expect(404)
+    await request(app).get(`/api/analyses/${refusedId}`).expect(401)
   })
 
   it('stores the photo upright, without its metadata, under a key made of its sha256', async () => {
@@ -149,6 +151,8 @@ describe('photo upload → queue → worker → analysis', () => {
       ['a truncated JPEG', () => noCard.jpeg.subarray(0, Math.floor(noCard.jpeg.length / 2)), 400, /incomplete or damaged/],
       ['a 20000 × 20000 PNG', () => pngBomb(20_000, 20_000), 413, /megapixels/],
       ['a 30 MB file', () => Buffer.alloc(30 * 1024 * 1024, 0xff), 413, /larger than 25 MB/],
+      // An ISO-BMFF ftyp box with the HEVC-coded HEIF major brand (ISO/IEC 23008-12), as an iPhone writes first.
+      ['a HEIC photo', () => Buffer.concat([Buffer.from([0, 0, 0, 24]), Buffer.from('ftypheic\0\0\0\0mif1heic', 'latin1'), Buffer.alloc(64)]), 415, /HEIC.*JPEG/],
       ['an AVIF image', () => sharp({ create: { width: 40, height: 30, channels: 3, background: 'grey' } }).avif().toBuffer(), 415, /JPEG, PNG or WebP/],
     ]
     for (const [what, make, status, message] of cases) {
