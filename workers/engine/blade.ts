@@ -89,13 +89,14 @@ function teethNear(edge: Pt[], fromLeft: boolean, reachMm: number, lowMm: number
 }
 
 /** Refuses when the traced edge reaches an end of the strip (the blade zone's end) or the photo's border. */
-function checkCutOff(path: Pt[], strip: Strip): void {
+function checkCutOff(path: Pt[], strip: Strip, tableV: number): void {
   const w = strip.img.width
   const margin = 2
-  const ends = [path[0], path[path.length - 1]]
-  if (ends.some(([u]) => u <= margin || u >= w - 1 - margin))
+  // Only the runner's low part counts: a boot reaching past the zone's end (it is longer than the blade) does not.
+  const low = path.filter(([, v]) => v > tableV - RUNNER_BAND_MM * strip.pxPerMm)
+  if (low.some(([u]) => u <= margin || u >= w - 1 - margin))
     throw new EngineRefusal('BLADE_CUT_OFF', 'edge reaches the end of the blade zone')
-  for (const [u, v] of path) {
+  for (const [u, v] of low) {
     for (const [du, dv] of [[-2, 0], [2, 0], [0, 2], [0, -2]]) {
       const uu = u + du
       const vv = v + dv
@@ -104,6 +105,9 @@ function checkCutOff(path: Pt[], strip: Strip): void {
     }
   }
 }
+
+/** Height above the table line within which the runner's bottom edge lies (toe picks included), mm. */
+const RUNNER_BAND_MM = 30
 
 /** Toe-pick teeth lie within this arc length of the edge's toe end, mm; their corners are restored there. */
 const TOE_PICK_ZONE_MM = 45
@@ -115,12 +119,12 @@ const CORNER_REACH_MM = 1.4
 const SEARCH_INSIDE_MM = 6
 const SEARCH_OUTSIDE_MM = 2.5
 
-function traceSamples(strip: Strip, sil: Silhouette): EdgeSample[] {
+function traceSamples(strip: Strip, sil: Silhouette, tableV: number): EdgeSample[] {
   const r = strip.pxPerMm
   const ratio = sil.steelRatio
   const path = trimExcursions(lowerPath(sil.outline), r).filter(([, v]) => v > 1.5 * r)
   if (path.length < 20) throw new EngineRefusal('BLADE_NOT_FOUND', 'no lower outline')
-  checkCutOff(path, strip)
+  checkCutOff(path, strip, tableV)
   const coarse = smoothResample(path, Math.max(2, Math.round(0.6 * r)), 0.25 * r)
   const w = strip.img.width
   const samples = refineAlongNormals(strip, coarse, {
@@ -154,7 +158,7 @@ export function traceBlade(cv: Cv, img: GreyImage, cal: Calibration, zone: Blade
   const tableV = (zone.tableY - zone.top) * pxPerMm
   const sil = segmentBlade(cv, strip, tableV)
   if (!sil) throw new EngineRefusal('BLADE_NOT_FOUND', 'no runner stands out from the card')
-  const samples = traceSamples(strip, sil)
+  const samples = traceSamples(strip, sil, tableV)
   const xs = samples.map((s) => s.p[0] / pxPerMm)
   if (samples.length < 100 || Math.max(...xs) - Math.min(...xs) < 150) throw new EngineRefusal('BLADE_NOT_FOUND', 'edge too short')
   const traced = dropStrayRuns(dropOutliers(samples.map((s) => stripToCard(strip, s.p[0], s.p[1])), 0.5, 0.03), 0.8, 12)
