@@ -71,6 +71,10 @@ describe('a shop\u2019s bench: what needs attention, its default targets and its
     await shopPage.waitForFunction(() => document.querySelector('tr[data-shop-target="heelLiftMm"]')?.textContent?.includes('18–30 mm'))
     expect(await heel.textContent()).toContain('this shop, Sharpener Odo')
 
+    await shopPage.getByLabel('Minimum runner height').fill('22.5')
+    await shopPage.getByRole('button', { name: 'Save minimum' }).click()
+    await shopPage.getByText('Minimum runner height saved').waitFor()
+
     await api(shopPage, 'POST', `/shops/${shop.id}/reference-profiles`, { analysisId: fresh })
     await shopPage.goto(`${baseUrl()}/compare?reference=${worn}`)
     await shopPage.getByText('What changed').waitFor()
@@ -82,5 +86,6 @@ describe('a shop\u2019s bench: what needs attention, its default targets and its
     const heelTarget = page.locator('tr[data-target="heelLiftMm"]')
     await heelTarget.waitFor()
     expect(await heelTarget.textContent()).toMatch(/18–30 mm.*shop default \(Edge Bench/)
+    expect(await page.locator('[data-part="runner-height"]').textContent()).toContain(`The shop's minimum is 22.5 mm (Edge Bench ${tag})`)
   })
 })
