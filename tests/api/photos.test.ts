@@ -60,6 +60,8 @@ describe('photo upload → queue → worker → analysis', () => {
     const res = await owner.client.post(`/api/blades/${ids.rightId}/photos`).attach('photo', noCard.jpeg, 'blade.jpg').expect(202)
     const refused = await waitForAnalysis(owner.client, res.body.analysisId, ['measured', 'refused', 'failed'])
     refusedId = refused.id
+    const notMeasured = await owner.client.put(`/api/analyses/${refused.id}/landmarks`).send({ heelEndAlongMm: 200 }).expect(409)
+    expect(notMeasured.body.error.code).toBe('NOT_MEASURED')
     expect(refused.status).toBe('refused')
     expect(refused.result).toBeNull()
     expect(refused.error!.message.length).toBeGreaterThan(20)
