@@ -8,9 +8,12 @@ import { bladeHistory, type MeasuredAnalysis } from './history.service'
 import { ACCENT, INK, heading, keyValues, lineChart, newReport, paragraph, table, type Doc } from './report-pdf'
 import { comparableFromResult, compareAnalyses, type MetricChange } from '../../shared/compare/analyses'
 import { mmToFeet } from '../../shared/geometry/hollow'
+import type { AnalysisResult } from '../../shared/schemas/analysis'
+import type { AnnotationDto } from '../../shared/schemas/analyses'
 import type { BladeHistory } from '../../shared/schemas/history'
 import { formatBand } from '../../shared/targets/bands'
 import { describeReading, readAnalysis } from '../../shared/targets/readings'
+import type { ResolvedTargets } from '../../shared/targets/resolve'
 
 type Ctx = Pick<AppContext, 'db'>
 
@@ -58,6 +61,40 @@ function baselineSection(doc: Doc, base: MeasuredAnalysis, current: MeasuredAnal
   }
 }
 
+function metricsSection(doc: Doc, r: AnalysisResult, resolved: ResolvedTargets): void {
+  heading(doc, 'Metrics against targets')
+  const readings = readAnalysis(r, resolved)
+  table(doc, ['Metric', 'Measured', 'Target', 'Status'], readings.map((m) => [
+    m.label + (m.remarks.length ? ` (${m.remarks.join('; ')})` : ''),
+    `${m.value.toFixed(m.decimals)} ± ${m.plusMinus.toFixed(m.decimals)} ${m.unit}`, formatBand(m.band, m.unit), m.status,
+  ]), [4, 3, 3, 2])
+  paragraph(doc, readings.map(describeReading).join('. ') + '.', { muted: true, size: 8 })
+  const radius = (v: number | null) => (v === null ? 'straight' : `${v.toFixed(0)} mm (${mmToFeet(v).toFixed(1)} ft)`)
+  keyValues(doc, [['Rocker radius, toe', radius(r.sectionRadii.toeMm)], ['Middle', radius(r.sectionRadii.middleMm)], ['Heel', radius(r.sectionRadii.heelMm)]])
+}
+
+function profileSection(doc: Doc, r: AnalysisResult, resolved: ResolvedTargets): void {
+  heading(doc, 'Profile')
+  const profile = comparableFromResult(r).bladeMm.filter((_, i) => i % 4 === 0)
+  const tp = resolved.touchPointMm.band
+  lineChart(doc, {
+    series: [{ points: profile, colour: INK, label: 'bottom edge, blade frame (x from the base pick toward the heel, y up from the support line)' }],
+    heightPt: 120, yExaggeration: 5, yZeroLine: true,
+    band: tp.min !== null && tp.max !== null ? [tp.min, tp.max] : undefined,
+    marks: [{ x: 0, label: 'B' }, { x: r.touchPointMm, label: 'T' }, { x: r.landmarks.heelEnd.alongMm, label: 'E' }],
+    caption: 'Heights drawn 5 times larger than lengths; the shaded stretch is the touch-point target.',
+  })
+}
+
+function notesSection(doc: Doc, notes: AnnotationDto[]): void {
+  heading(doc, 'Notes')
+  if (!notes.length) paragraph(doc, 'No notes on this analysis.', { muted: true })
+  for (const n of notes) {
+    paragraph(doc, `${n.authorName}, ${date(n.createdAt)}${n.alongMm !== null ? `, ${n.alongMm.toFixed(0)} mm behind the base pick` : ''}: ${n.text}${n.resolved ? ' (resolved)' : ''}`)
+    for (const reply of n.replies) paragraph(doc, `    ${reply.authorName}: ${reply.text}`, { muted: true })
+  }
+}
+
 /** The PDF report of one analysis: metrics against targets, profile chart, baseline comparison, notes, cautions. */
 export async function analysisReport(ctx: Ctx, user: AuthUser, analysisId: string): Promise<Buffer> {
   const { analysis, blade } = await analysisFor(ctx, user, analysisId, 'read')
@@ -69,38 +106,14 @@ export async function analysisReport(ctx: Ctx, user: AuthUser, analysisId: strin
   bladeFacts(doc, blade, row)
   keyValues(doc, [['Measured', date(row.takenAt)], ['Sharpenings so far', String(row.sharpeningsSoFar)], ['Analysis', `${analysis.id} (algorithm ${analysis.algorithmVersion ?? '-'})`]])
 
-  heading(doc, 'Metrics against targets')
-  const readings = readAnalysis(r, resolved)
-  table(doc, ['Metric', 'Measured', 'Target', 'Status'], readings.map((m) => [
-    m.label + (m.remarks.length ? ` (${m.remarks.join('; ')})` : ''),
-    `${m.value.toFixed(m.decimals)} ± ${m.plusMinus.toFixed(m.decimals)} ${m.unit}`, formatBand(m.band, m.unit), m.status,
-  ]), [4, 3, 3, 2])
-  paragraph(doc, readings.map(describeReading).join('. ') + '.', { muted: true, size: 8 })
-  const radius = (v: number | null) => (v === null ? 'straight' : `${v.toFixed(0)} mm (${mmToFeet(v).toFixed(1)} ft)`)
-  keyValues(doc, [['Rocker radius, toe', radius(r.sectionRadii.toeMm)], ['Middle', radius(r.sectionRadii.middleMm)], ['Heel', radius(r.sectionRadii.heelMm)]])
-
-  heading(doc, 'Profile')
-  const profile = comparableFromResult(r).bladeMm.filter((_, i) => i % 4 === 0)
-  const tp = resolved.touchPointMm.band
-  lineChart(doc, {
-    series: [{ points: profile, colour: INK, label: 'bottom edge, blade frame (x from the base pick toward the heel, y up from the support line)' }],
-    heightPt: 120, yExaggeration: 5, yZeroLine: true,
-    band: tp.min !== null && tp.max !== null ? [tp.min, tp.max] : undefined,
-    marks: [{ x: 0, label: 'B' }, { x: r.touchPointMm, label: 'T' }, { x: r.landmarks.heelEnd.alongMm, label: 'E' }],
-    caption: 'Heights drawn 5 times larger than lengths; the shaded stretch is the touch-point target.',
-  })
+  metricsSection(doc, r, resolved)
+  profileSection(doc, r, resolved)
 
   const baselineId = history.baseline?.analysisId
   const base = analyses.find((a) => a.id === baselineId)
   if (base && base.id !== analysis.id) baselineSection(doc, base, analysis as MeasuredAnalysis)
 
-  heading(doc, 'Notes')
-  const notes = await listAnnotations(ctx, analysis.id)
-  if (!notes.length) paragraph(doc, 'No notes on this analysis.', { muted: true })
-  for (const n of notes) {
-    paragraph(doc, `${n.authorName}, ${date(n.createdAt)}${n.alongMm !== null ? `, ${n.alongMm.toFixed(0)} mm behind the base pick` : ''}: ${n.text}${n.resolved ? ' (resolved)' : ''}`)
-    for (const reply of n.replies) paragraph(doc, `    ${reply.authorName}: ${reply.text}`, { muted: true })
-  }
+  notesSection(doc, await listAnnotations(ctx, analysis.id))
   cautions(doc, r.warnings.map((w) => w.message))
   doc.end()
   return bytes
