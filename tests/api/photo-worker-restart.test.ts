@@ -71,5 +71,5 @@ describe('a worker killed mid-job', () => {
               (SELECT count(*)::int FROM pgboss.job WHERE name = 'photo.analyze') AS jobs,
               (SELECT count(*)::int FROM pgboss.job WHERE name = 'photo.analyze' AND state = 'completed') AS completed`)
     expect(counts[0]).toEqual({ analyses: 1, photos: 1, jobs: 1, completed: 1 })
-  })
+  }, 600_000)
 })
