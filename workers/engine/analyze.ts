@@ -3,6 +3,8 @@ import { measureProfile, type Discipline, type ProfileMeasurement } from '../../
 import { ProfileError } from '../../shared/geometry/profile-error'
 import { extractEdge, type ExtractedEdge } from './extract'
 import { EngineRefusal } from './errors'
+import { SYSTEMATIC_EDGE_PX } from './blade'
+import { localScale } from './rectify'
 import type { Mat3, Pt } from './projective'
 
 /** Version of the measurement algorithm; stored with every analysis so results can be recomputed or compared. */
@@ -64,7 +66,7 @@ function buildResult(x: ExtractedEdge, options: AnalyzeOptions): AnalysisResult 
       checkBarMm: options.checkBarMm ?? null,
     },
     quality: {
-      edgeResidualMm: Math.max(x.edge.edgeSigmaMm, measured.edgeResidualMm),
+      edgeResidualMm: Math.max(x.edge.edgeScatterMm, measured.edgeResidualMm),
       // Sharpness: 1 / edge blur in mm (Gaussian sigma), so 10 means a 0.1 mm blur.
       sharpness: 1 / Math.max(0.01, x.edge.blurMm),
       coverage: Math.min(1, x.edge.coverage),
@@ -89,6 +91,13 @@ export async function analyzePhoto(bytes: Buffer, options: AnalyzeOptions): Prom
   }
 }
 
+/** The edge sigma analyzePhoto used, rebuilt from what the result stores (its residual and the photo's scale). */
+function storedEdgeSigma(result: AnalysisResult): number {
+  const edge = result.edge.cardMm as Pt[]
+  const pxPerMm = localScale(result.edge.homography.flat(), edge[Math.floor(edge.length / 2)])
+  return Math.max(result.quality.edgeResidualMm, SYSTEMATIC_EDGE_PX / pxPerMm)
+}
+
 /** Recomputes the metrics of a stored result from its stored edge with moved landmarks; no image is read. */
 export function recomputeFromEdge(
   result: AnalysisResult,
@@ -99,7 +108,7 @@ export function recomputeFromEdge(
   const toe = edge[0][0] <= edge[edge.length - 1][0] ? 'left' : 'right'
   const options: AnalyzeOptions = { ...blade, overrides }
   const measured = profile(
-    { edgeMm: edge, toe, edgeSigmaMm: result.quality.edgeResidualMm, calibrationSigmaMm: result.card.residualMm },
+    { edgeMm: edge, toe, edgeSigmaMm: storedEdgeSigma(result), calibrationSigmaMm: result.card.residualMm },
     options,
   )
   return analysisResultSchema.parse({ ...result, ...metrics(measured) })

@@ -28,6 +28,8 @@ export interface BladeEdge {
   blurMm: number
   blurPx: number
   /** Scatter of the edge about a smooth curve, mm (1 sigma). */
+  edgeScatterMm: number
+  /** Edge uncertainty for the metrics' ±: the scatter or the systematic floor, whichever is larger, mm (1 sigma). */
   edgeSigmaMm: number
   /** Share of the traced outline that gave a clean sub-pixel edge. */
   coverage: number
@@ -106,6 +108,13 @@ function checkCutOff(path: Pt[], strip: Strip, tableV: number): void {
   }
 }
 
+/**
+ * Edge-location error that does not average out along the edge, photo px: shadows merging with the steel's step and
+ * the card-to-table step nearby shift stretches of the edge by one to three pixels on the synthetic photos, far more
+ * than the point-to-point scatter, so the ± must carry it.
+ */
+export const SYSTEMATIC_EDGE_PX = 1.5
+
 /** Height above the table line within which the runner's bottom edge lies (toe picks included), mm. */
 const RUNNER_BAND_MM = 30
 
@@ -169,7 +178,8 @@ export function traceBlade(cv: Cv, img: GreyImage, cal: Calibration, zone: Blade
   const blurMm = median(samples.map((s) => s.sigma)) / pxPerMm
   return {
     edgeMm: edge,
-    toe, planeHomography, blurMm, blurPx: blurMm * photoPxPerMm, edgeSigmaMm: edgeScatterMm(edge),
+    toe, planeHomography, blurMm, blurPx: blurMm * photoPxPerMm, edgeScatterMm: edgeScatterMm(edge),
+    edgeSigmaMm: Math.max(edgeScatterMm(edge), SYSTEMATIC_EDGE_PX / photoPxPerMm),
     coverage: samples.length / Math.max(1, Math.round(pathLengthMm(edge) / 0.25)),
     darkerSteel: sil.darker, pxPerMm,
   }
