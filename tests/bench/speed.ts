@@ -27,7 +27,7 @@ async function timed(fn: () => Promise<unknown>): Promise<number> {
 }
 
 async function main(): Promise<void> {
-  const { values } = parseArgs({ options: { runs: { type: 'string', default: '5' }, seed: { type: 'string', default: '1022' } } })
+  const { values } = parseArgs({ options: { runs: { type: 'string', default: '5' }, seed: { type: 'string', default: '1012' } } })
   const runs = Number(values.runs)
   const photo = await renderScene(sampleScene(Number(values.seed), { resolution: '12mp' }))
   const m = photo.truth.metrics
