@@ -81,7 +81,7 @@ async function main(): Promise<void> {
     children.push(startNodeProcess('server/main.ts', env, 'server', true), startNodeProcess('workers/main.ts', env, 'worker', true))
     console.error('Rendering 12 MP test photos…')
     const photos: Awaited<ReturnType<typeof generatedPhoto>>[] = []
-    for (const seed of SEEDS) photos.push(await generatedPhoto(seed, { resolution: '12mp', frontal: true, discipline: 'freestyle' }))
+    for (const seed of SEEDS) photos.push(await generatedPhoto(seed, { resolution: '12mp', discipline: 'freestyle' }))
     await waitForHttp(`${env.PUBLIC_URL}/api/health`)
     const api = client(env.PUBLIC_URL, await signedInCookie(env.PUBLIC_URL, env.DATABASE_URL))
     const skater = await api.json<{ id: string }>('POST', '/skaters', { name: 'Bench' })
