@@ -12,6 +12,12 @@ import type { SeedStep } from './index'
  * Pairs of skates for the demo club's skaters, a few recorded sharpenings, and one photo of a generated (invented)
  * blade queued for the worker, so the first `npm start` shows a real measurement made by the engine.
  */
+/** The generated scene behind the demo photos: one the current engine measures, so the demo opens on a result. */
+export const DEMO_SCENE_SEED = 11
+export function demoScene(toe?: 'left' | 'right') {
+  return sampleScene(DEMO_SCENE_SEED, { resolution: '3mp', discipline: 'freestyle', ...(toe ? { toe } : {}) })
+}
+
 export const demoBladesStep: SeedStep = {
   name: 'demo-blades',
   signIns: [],
@@ -21,7 +27,7 @@ export const demoBladesStep: SeedStep = {
     const mila = await profiles.findOneBy({ name: 'Mila Haldor' })
     if (!tomas || !mila) return
     // The generator is code, not a stored image: the demo photo is rendered here, then measured by the worker.
-    const scene = sampleScene(3, { resolution: '3mp', frontal: true, discipline: 'freestyle' })
+    const scene = demoScene()
     const photo = await renderScene(scene)
     const sizeIn = scene.blade.nominalSizeIn
     const comp = await createPair(ctx, tomas.id, { label: 'Competition skates', sizeIn, discipline: 'freestyle', sharpeningsAtRegistration: 0 })

@@ -11,7 +11,7 @@ import { Sharpening } from '../entities/sharpening.entity'
 import { uploadPhoto } from '../services/photo.service'
 import { setTarget } from '../services/target.service'
 import { renderScene } from '../../fixtures/synthetic/render'
-import { sampleScene } from '../../fixtures/synthetic/scene'
+import { demoScene } from './demo-blades'
 import type { SeedStep } from './index'
 
 const DAY_MS = 86_400_000
@@ -57,7 +57,7 @@ export const demoWearStep: SeedStep = {
 
 /** Renders this visit's blade, uploads it through the normal photo path and dates it to the visit. */
 async function photographVisit(ctx: AppContext, blade: Blade, userId: string, driftMm: number, takenAt: Date): Promise<string> {
-  const scene = sampleScene(3, { resolution: '3mp', frontal: true, discipline: 'freestyle', toe: blade.side === 'left' ? 'left' : 'right' })
+  const scene = demoScene(blade.side === 'left' ? 'left' : 'right')
   scene.blade.rocker.touchMm += driftMm
   const { jpeg } = await renderScene(scene)
   const { analysisId } = await uploadPhoto(ctx, { blade, buffer: jpeg, userId })
