@@ -5,6 +5,7 @@ import { closeContext, createContext } from '../context'
 import { createDataSource } from '../db/data-source'
 import { QueueService } from '../queue/queue.service'
 import { StorageService } from '../services/storage.service'
+import { assertPortsFree } from './ports'
 import { ensureDatabase, ensurePostgresInstalled, startPostgres } from './postgres'
 import { serviceEnv, type Profile } from './profiles'
 import { startS3Fake } from './s3-fake'
@@ -17,6 +18,7 @@ export interface LocalServices {
 }
 
 export async function startServices(profile: Profile, options: { fresh: boolean }): Promise<LocalServices> {
+  await assertPortsFree({ PostgreSQL: profile.pgPort, 'S3 fake': profile.s3Port, 'SMTP fake': profile.smtpPort, app: profile.appPort })
   if (options.fresh) rmSync(profile.dataDir, { recursive: true, force: true })
   const stops: (() => unknown)[] = []
   const stop = async () => {

@@ -1,5 +1,5 @@
 import type { ChildProcess } from 'node:child_process'
-import { spawn } from 'node:child_process'
+import { spawn, spawnSync } from 'node:child_process'
 import { once } from 'node:events'
 import { join } from 'node:path'
 import { demoSignIns } from '../seeds/index'
@@ -59,6 +59,16 @@ async function runStart(): Promise<void> {
   console.log('  Press Ctrl-C to stop.\n')
 }
 
+/** The whole tree through vue-tsc, so a type error fails CI even where no test reaches it. */
+function typecheck(): void {
+  step('Type-checking client, server, workers and tests…')
+  const result = spawnSync(process.execPath, [join(projectRoot, 'node_modules/vue-tsc/bin/vue-tsc.js'), '--noEmit', '-p', 'tsconfig.json'], {
+    cwd: projectRoot,
+    stdio: 'inherit',
+  })
+  if (result.status !== 0) throw new Error('Type errors: see above.')
+}
+
 async function runTests(): Promise<number> {
   services = await startServices(profile, { fresh: true })
   await prepareDatabase(profile, 'rockerbook_template')
@@ -66,6 +76,7 @@ async function runTests(): Promise<number> {
   buildClientIfChanged()
   ensureChromium()
   const url = await startApp(profile.database, true)
+  if (!extraArgs.length) typecheck()
   step('Running the tests (unit, API, browser)…')
   const vitest = spawn(process.execPath, [join(projectRoot, 'node_modules/vitest/vitest.mjs'), 'run', ...extraArgs], {
     cwd: projectRoot,
