@@ -2,8 +2,11 @@ import { Router } from 'express'
 import { z } from 'zod'
 import type { AppContext } from '../context'
 import { validate } from '../middleware/validate'
-import { MAX_DPI, renderCard } from '../services/card.service'
+import { renderCard } from '../services/card.service'
 import { cardFormatSchema, paperSchema } from '../../shared/schemas/card'
+
+/** The resolutions served: a short fixed list, so anonymous requests cannot fill the render cache with every dpi. */
+const SERVED_DPI = [100, 150, 300, 600]
 
 const CONTENT_TYPES = { pdf: 'application/pdf', png: 'image/png', json: 'application/json' } as const
 
@@ -14,7 +17,9 @@ export function cardRoutes(_ctx: AppContext): Router {
   const cache = new Map<string, Promise<Buffer>>()
   r.get('/card/:paper.:format', validate({
     params: z.object({ paper: paperSchema, format: cardFormatSchema }),
-    query: z.object({ dpi: z.coerce.number().int().min(72).max(MAX_DPI).optional() }),
+    query: z.object({
+      dpi: z.coerce.number().refine((v) => SERVED_DPI.includes(v), { message: `dpi must be one of ${SERVED_DPI.join(', ')}` }).optional(),
+    }),
   }), async (req, res) => {
     const { paper, format } = req.params as unknown as { paper: 'a4' | 'letter'; format: 'pdf' | 'png' | 'json' }
     const { dpi } = req.query as { dpi?: number }

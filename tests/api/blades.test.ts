@@ -121,6 +121,8 @@ describe('GET /api/card/:paper.:format', () => {
     const png = await request(app).get('/api/card/a4.png?dpi=100').buffer(true).expect(200)
     // PNG signature, from the PNG specification (ISO/IEC 15948): 89 50 4E 47 0D 0A 1A 0A.
     expect(Buffer.from(png.body).subarray(0, 8).toString('hex')).toBe('89504e470d0a1a0a')
+    const oddDpi = await request(app).get('/api/card/a4.png?dpi=137').expect(400)
+    expect(oddDpi.body.error.details[0].path).toBe('dpi')
     const bad = await request(app).get('/api/card/a3.pdf').expect(400)
     expect(bad.body.error.details[0].path).toBe('paper')
   })
