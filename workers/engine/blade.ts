@@ -7,7 +7,8 @@ import { segmentBlade, type Silhouette } from './segment'
 import type { CardShade } from './shade'
 import { lowerPath, refineAlongNormals, smoothResample, trimExcursions, type EdgeSample } from './trace'
 import { EngineRefusal } from './errors'
-import { dropOutliers, dropStrayRuns, sharpenCorners, startAtFirstTip } from './clean'
+import { dropOutliers, dropStrayRuns, startAtFirstTip } from './clean'
+import { restoreTips } from './tips'
 import type { Mat3, Pt } from './projective'
 
 /** Where on the card the blade's silhouette is searched (card mm) and the card's table line. */
@@ -38,6 +39,9 @@ export interface BladeEdge {
 }
 
 const MARGIN_BELOW_TABLE_MM = 6
+/** Blur (Gaussian sigma of the edge) beyond which the edge cannot be located well enough, mm and photo px. */
+export const MAX_BLUR_MM = 0.45
+export const MAX_BLUR_PX = 6
 
 function median(values: number[]): number {
   const s = [...values].sort((a, b) => a - b)
@@ -120,9 +124,6 @@ const RUNNER_BAND_MM = 30
 
 /** Toe-pick teeth lie within this arc length of the edge's toe end, mm; their corners are restored there. */
 const TOE_PICK_ZONE_MM = 45
-/** Corner faces are fitted from this far from a corner (past its blur) to this far (within one tooth face), mm. */
-const CORNER_GAP_MM = 0.35
-const CORNER_REACH_MM = 1.4
 
 /** How far the edge search reaches into the steel and out of it, mm: past the widest shadow the runner casts. */
 const SEARCH_INSIDE_MM = 6
@@ -168,14 +169,17 @@ export function traceBlade(cv: Cv, img: GreyImage, cal: Calibration, zone: Blade
   const sil = segmentBlade(cv, strip, tableV)
   if (!sil) throw new EngineRefusal('BLADE_NOT_FOUND', 'no runner stands out from the card')
   const samples = traceSamples(strip, sil, tableV)
+  // Blur first: a defocused runner also loses stretches of its edge, and blur is what the person must fix.
+  const blurMm = median(samples.map((s) => s.sigma)) / pxPerMm
+  if (blurMm > MAX_BLUR_MM || blurMm * photoPxPerMm > MAX_BLUR_PX)
+    throw new EngineRefusal('TOO_BLURRY', `edge blur ${blurMm.toFixed(2)} mm, ${(blurMm * photoPxPerMm).toFixed(1)} px`)
   const xs = samples.map((s) => s.p[0] / pxPerMm)
   if (samples.length < 100 || Math.max(...xs) - Math.min(...xs) < 150) throw new EngineRefusal('BLADE_NOT_FOUND', 'edge too short')
   const traced = dropStrayRuns(dropOutliers(samples.map((s) => stripToCard(strip, s.p[0], s.p[1])), 0.5, 0.03), 0.8, 12)
   if (longestGapMm(traced) > MAX_EDGE_GAP_MM) throw new EngineRefusal('BLADE_NOT_FOUND', 'runner not told apart from the table')
   const toe = teethNear(traced, true, 45, 25, 0.5) >= teethNear(traced, false, 45, 25, 0.5) ? 'left' : 'right'
   const ordered = toe === 'left' ? traced : traced.reverse()
-  const edge = sharpenCorners(startAtFirstTip(ordered, 0.5, TOE_PICK_ZONE_MM), TOE_PICK_ZONE_MM, CORNER_GAP_MM, CORNER_REACH_MM)
-  const blurMm = median(samples.map((s) => s.sigma)) / pxPerMm
+  const edge = restoreTips(startAtFirstTip(ordered, 0.5, TOE_PICK_ZONE_MM), { zoneMm: TOE_PICK_ZONE_MM })
   return {
     edgeMm: edge,
     toe, planeHomography, blurMm, blurPx: blurMm * photoPxPerMm, edgeScatterMm: edgeScatterMm(edge),

@@ -1,6 +1,7 @@
 type Pt = [number, number]
 
-function cumulative(pts: Pt[]): Float64Array {
+/** Arc length from the first point to each point. */
+export function cumulative(pts: Pt[]): Float64Array {
   const s = new Float64Array(pts.length)
   for (let i = 1; i < pts.length; i++) s[i] = s[i - 1] + Math.hypot(pts[i][0] - pts[i - 1][0], pts[i][1] - pts[i - 1][1])
   return s
@@ -38,80 +39,6 @@ export function dropOutliers(pts: Pt[], halfMm: number, floorMm: number): Pt[] {
     if (bend[i] <= 3 * typical + floorMm) keep.push(pts[i])
   }
   return keep
-}
-
-function fitLine(pts: Pt[]): { p: Pt; d: Pt } | null {
-  if (pts.length < 3) return null
-  let mx = 0
-  let my = 0
-  for (const [x, y] of pts) {
-    mx += x / pts.length
-    my += y / pts.length
-  }
-  let sxx = 0
-  let sxy = 0
-  let syy = 0
-  for (const [x, y] of pts) {
-    sxx += (x - mx) ** 2
-    sxy += (x - mx) * (y - my)
-    syy += (y - my) ** 2
-  }
-  const theta = 0.5 * Math.atan2(2 * sxy, sxx - syy)
-  return { p: [mx, my], d: [Math.cos(theta), Math.sin(theta)] }
-}
-
-function intersect(a: { p: Pt; d: Pt }, b: { p: Pt; d: Pt }): Pt | null {
-  const det = a.d[0] * b.d[1] - a.d[1] * b.d[0]
-  if (Math.abs(det) < Math.sin((35 * Math.PI) / 180)) return null
-  const t = ((b.p[0] - a.p[0]) * b.d[1] - (b.p[1] - a.p[1]) * b.d[0]) / det
-  return [a.p[0] + a.d[0] * t, a.p[1] + a.d[1] * t]
-}
-
-/**
- * Restores sharp corners that blur rounds off — the toe picks' tips and notches — by intersecting lines fitted to
- * the two straight faces on either side (from `gapMm` to `reachMm` of arc length away from the corner), like a
- * marker corner. Only corners turning more than 35° within `reachMm` inside the first `zoneMm` of the edge.
- */
-export function sharpenCorners(pts: Pt[], zoneMm: number, gapMm: number, reachMm: number): Pt[] {
-  const s = cumulative(pts)
-  const out: Pt[] = []
-  let i = 0
-  while (i < pts.length) {
-    const corner = s[i] < zoneMm ? cornerAt(pts, s, i, gapMm, reachMm) : null
-    if (!corner) {
-      out.push(pts[i++])
-      continue
-    }
-    // Replace the rounded stretch around the corner by the corner itself.
-    while (out.length && s[i] - cumulativeOf(out, pts, s) < gapMm) out.pop()
-    out.push(corner.point)
-    i = corner.resumeAt
-  }
-  return out
-}
-
-function cumulativeOf(out: Pt[], pts: Pt[], s: Float64Array): number {
-  const last = out[out.length - 1]
-  const k = pts.indexOf(last)
-  return k >= 0 ? s[k] : -Infinity
-}
-
-function cornerAt(pts: Pt[], s: Float64Array, i: number, gapMm: number, reachMm: number): { point: Pt; resumeAt: number } | null {
-  const before = pts.filter((_, k) => s[i] - s[k] >= gapMm && s[i] - s[k] <= reachMm)
-  const after = pts.filter((_, k) => s[k] - s[i] >= gapMm && s[k] - s[i] <= reachMm)
-  const a = fitLine(before)
-  const b = fitLine(after)
-  if (!a || !b || before.length < 4 || after.length < 4) return null
-  const p = intersect(a, b)
-  if (!p || Math.hypot(p[0] - pts[i][0], p[1] - pts[i][1]) > gapMm) return null
-  // Only where this point is the nearest to the intersection among its rounded neighbours.
-  for (let k = i - 1; k >= 0 && s[i] - s[k] < gapMm; k--) if (Math.hypot(p[0] - pts[k][0], p[1] - pts[k][1]) < Math.hypot(p[0] - pts[i][0], p[1] - pts[i][1])) return null
-  let j = i + 1
-  while (j < pts.length && s[j] - s[i] < gapMm) {
-    if (Math.hypot(p[0] - pts[j][0], p[1] - pts[j][1]) < Math.hypot(p[0] - pts[i][0], p[1] - pts[i][1])) return null
-    j++
-  }
-  return { point: p, resumeAt: j }
 }
 
 /**

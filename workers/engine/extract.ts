@@ -12,9 +12,6 @@ import { EngineRefusal } from './errors'
 
 /** Nominal distance of the runner's near face in front of the card: half a 4 mm runner (DESIGN §3). */
 export const RUNNER_OFFSET_MM = 2
-/** Blur (Gaussian sigma of the edge) beyond which the edge cannot be located well enough, mm and photo px. */
-export const MAX_BLUR_MM = 0.45
-export const MAX_BLUR_PX = 6
 /**
  * Whole-photo sharpness: standard deviation of the Laplacian of the photo reduced to 1000 px, over the photo's own
  * standard deviation. Measured on synthetic photos: 0.57–0.97 for usable ones, 0.12–0.32 for strongly defocused ones.
@@ -123,8 +120,6 @@ export async function extractEdge(bytes: Buffer, checkBarMm?: number | null): Pr
   const printScale = checkBarMm ? checkBarMm / 100 : 1
   const img = await decodeGrey(bytes)
   const { calibration, layout, edge } = await locate(img, [cardLayout('a4'), cardLayout('letter')], printScale)
-  if (edge.blurMm > MAX_BLUR_MM || edge.blurPx > MAX_BLUR_PX)
-    throw new EngineRefusal('TOO_BLURRY', `edge blur ${edge.blurMm.toFixed(2)} mm, ${edge.blurPx.toFixed(1)} px`)
   return {
     edge, calibration, layout, overlayHomography: overlayHomography(edge, calibration), printScale,
     image: { width: img.width, height: img.height },

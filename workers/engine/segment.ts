@@ -18,13 +18,23 @@ export interface Silhouette {
 /** First pass: a pixel is foreground when its brightness differs from the card's expected brightness by this share. */
 const FIRST_PASS_CONTRAST = 0.07
 
-/** Largest outer contour of a binary mask (CHAIN_APPROX_NONE), after a 3 × 3 opening against noise. */
-export function largestContour(cv: Cv, mask: Uint8Array, width: number, height: number): Pt[] {
+/**
+ * Largest outer contour of a binary mask (CHAIN_APPROX_NONE), after a 3 × 3 opening against noise. An opening also
+ * cuts a sharp tooth's last few pixels off, which the edge search cannot then recover, so with `restoreTips` the
+ * mask's own pixels within 3 px of the opened mask are put back (an opening by partial reconstruction).
+ */
+export function largestContour(cv: Cv, mask: Uint8Array, width: number, height: number, restoreTips = false): Pt[] {
   return withMats((track) => {
     const m = track(new cv.Mat(height, width, cv.CV_8UC1))
     m.data.set(mask)
     const kernel = track(cv.getStructuringElement(cv.MORPH_RECT, new cv.Size(3, 3)))
-    cv.morphologyEx(m, m, cv.MORPH_OPEN, kernel)
+    if (restoreTips) {
+      const original = track(m.clone())
+      cv.morphologyEx(m, m, cv.MORPH_OPEN, kernel)
+      const near = track(cv.getStructuringElement(cv.MORPH_ELLIPSE, new cv.Size(7, 7)))
+      cv.dilate(m, m, near)
+      cv.bitwise_and(m, original, m)
+    } else cv.morphologyEx(m, m, cv.MORPH_OPEN, kernel)
     const contours = track(new cv.MatVector())
     const hierarchy = track(new cv.Mat())
     cv.findContours(m, contours, hierarchy, cv.RETR_EXTERNAL, cv.CHAIN_APPROX_NONE)
@@ -133,6 +143,6 @@ export function segmentBlade(cv: Cv, strip: Strip, tableV: number): Silhouette |
   const ratio = ratioNearTable(strip, data, best.mask, tableV, best.cols)
   if (Math.abs(ratio - 1) < 0.08) return null
   const table = { level: tableLevels(strip, data, Math.max(2, Math.round(0.8 * r))), step: Math.max(10, 0.5 * Math.abs(ratio - 1) * strip.shade[Math.floor(tableV - r) * width + (width >> 1)]) }
-  const outline = largestContour(cv, ratioMask(strip, data, 0.5 * Math.abs(ratio - 1), best.polarity, table), width, height)
+  const outline = largestContour(cv, ratioMask(strip, data, 0.5 * Math.abs(ratio - 1), best.polarity, table), width, height, true)
   return outline.length < 20 ? null : { outline, steelRatio: ratio, darker: ratio < 1 }
 }

@@ -1,0 +1,47 @@
+import { describe, expect, it } from 'vitest'
+import { douglasPeucker, restoreTips } from '../../../workers/engine/tips'
+
+type Pt = [number, number]
+
+/** Points every `step` mm along a polyline. */
+function sampled(corners: Pt[], step = 0.25): Pt[] {
+  const out: Pt[] = []
+  for (let k = 0; k + 1 < corners.length; k++) {
+    const [a, b] = [corners[k], corners[k + 1]]
+    const n = Math.ceil(Math.hypot(b[0] - a[0], b[1] - a[1]) / step)
+    for (let i = 0; i < n; i++) out.push([a[0] + ((b[0] - a[0]) * i) / n, a[1] + ((b[1] - a[1]) * i) / n])
+  }
+  out.push(corners[corners.length - 1])
+  return out
+}
+
+describe('restoring the toe picks\u2019 tips', () => {
+  // A tooth pointing down (card y down): front face from (0, 0) to the tip at (1.5, 5.5), rear face up to (4.5, 1.5),
+  // then a long rocker-like run. Its last 0.7 mm either side of the tip is cut away, as blur and segmentation do.
+  const tip: Pt = [1.5, 5.5]
+  const full = sampled([[0, 0], tip, [4.5, 1.5], [40, 2.5]])
+  const cut = full.filter((p) => Math.hypot(p[0] - tip[0], p[1] - tip[1]) > 0.7)
+
+  it('puts a lost tip back where its straight faces meet', () => {
+    const restored = restoreTips(cut)
+    const lowest = restored.reduce((a, b) => (b[1] > a[1] ? b : a))
+    // Exact geometry: the faces are straight lines through the tip, so their intersection is the tip.
+    expect(lowest[0]).toBeCloseTo(tip[0], 6)
+    expect(lowest[1]).toBeCloseTo(tip[1], 6)
+  })
+
+  it('leaves an edge without corners alone', () => {
+    const smooth = sampled([[0, 0], [40, 2]])
+    expect(restoreTips(smooth)).toEqual(smooth)
+  })
+
+  it('keeps a tip that is already sharp', () => {
+    const restored = restoreTips(full)
+    expect(restored.some((p) => Math.hypot(p[0] - tip[0], p[1] - tip[1]) < 1e-9)).toBe(true)
+  })
+
+  it('simplifies a polyline to its corners (Douglas–Peucker)', () => {
+    const pts = sampled([[0, 0], [10, 0], [10, 10]], 0.5)
+    expect(douglasPeucker(pts, 0, pts.length - 1, 0.01).map((i) => pts[i])).toEqual([[0, 0], [10, 0], [10, 10]])
+  })
+})
