@@ -4,7 +4,7 @@
  */
 
 export const CAPTURE_STEPS: readonly string[] = [
-  'Stand the skate on its blade on a table, holding it by the boot.',
+  'Stand the skate on its blade on a plain surface clearly lighter or darker than the steel, holding it by the boot.',
   'Stand this card upright right behind the runner, touching it, its bottom edge on the table, both blade ends inside the band.',
   'From 30–60 cm, a little above the table, photograph square-on with the whole card and blade in the frame; avoid glare.',
 ]

@@ -17,37 +17,46 @@ export interface SupportHull {
 
 /**
  * Finds the support line L on an edge in a y-up frame with the toe toward −x (mm): the longest edge of the lower
- * convex hull in front of the rocker's lowest point. Its front end is the base pick tip B, its rear end the
- * provisional touch point. Throws BLADE_CUT_OFF when no such bridge exists (no toe picks in the edge), and
- * BLADE_NOT_FOUND when the bridge does not start at a tooth tip (the trace lost the base pick).
+ * convex hull in front of the rocker's lowest point that starts at a tooth tip among the toe picks. Its front end is
+ * the base pick tip B, its rear end the provisional touch point. (On a clean edge this is simply the longest hull edge
+ * in front of the lowest point; asking for a tooth tip keeps a traced rocker's small bumps, which add hull vertices
+ * of their own, from posing as B.) Throws BLADE_CUT_OFF when no such bridge exists (no toe picks in the edge), and
+ * BLADE_NOT_FOUND when the picks are there but no bridge starts at a tooth tip (the trace lost the base pick).
  */
 export function findSupportHull(work: readonly Vec2[]): SupportHull {
   const xs = work.map((p) => p[0])
   const [minX, maxX] = [Math.min(...xs), Math.max(...xs)]
-  // The rocker's lowest point: the picks occupy the front tenth of a blade, so skip the front fifth in case a tilted
-  // photo puts a pick tip level with the rocker.
+  // The picks occupy the front tenth of a blade: the rocker's lowest point is looked for behind the front fifth (in
+  // case a tilted photo puts a pick tip level with the rocker), and B within it.
+  const pickZoneEnd = minX + PICK_ZONE_SHARE * (maxX - minX)
   let lowest = -1
   for (let i = 0; i < work.length; i++)
-    if (work[i][0] >= minX + 0.2 * (maxX - minX) && (lowest < 0 || work[i][1] < work[lowest][1])) lowest = i
+    if (work[i][0] >= pickZoneEnd && (lowest < 0 || work[i][1] < work[lowest][1])) lowest = i
   const hull = lowerHull(work)
   let best: SupportHull | null = null
   let bestLength = 0
+  let anyBridge = false
   for (let k = 0; k + 1 < hull.length; k++) {
     const a = hull[k]
     const b = hull[k + 1]
     if (work[b][0] > work[lowest][0]) break
     const length = dist(work[a], work[b])
-    if (length > bestLength) {
+    if (length < MIN_BRIDGE_MM) continue
+    anyBridge = true
+    if (work[a][0] <= pickZoneEnd && length > bestLength && isToothTip(work, a)) {
       bestLength = length
       best = { basePickIndex: a, touchIndex: b }
     }
   }
-  if (!best || bestLength < MIN_BRIDGE_MM)
+  if (!anyBridge)
     throw new ProfileError('BLADE_CUT_OFF', 'The toe picks are not in the traced edge, so the base pick cannot be found.')
-  if (!isToothTip(work, best.basePickIndex))
+  if (!best)
     throw new ProfileError('BLADE_NOT_FOUND', 'The base pick could not be told apart from the rocker in the traced edge.')
   return best
 }
+
+/** Share of the blade's length, from the toe end, within which the base pick lies (common practice, no published source). */
+const PICK_ZONE_SHARE = 0.2
 
 /** A tooth's front face rises at least this much within TOOTH_FACE_ARC_MM in front of its tip (mm). */
 export const TOOTH_FACE_RISE_MM = 0.3

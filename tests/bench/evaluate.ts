@@ -113,6 +113,7 @@ export const EXPECTED_REFUSAL: Record<Exclude<Refusal, 'none'>, string> = {
   'no-blade': 'BLADE_NOT_FOUND',
   'blade-cut-off': 'BLADE_CUT_OFF',
   'strong-blur': 'TOO_BLURRY',
+  'plain-surface': 'BLADE_NOT_FOUND',
 }
 
 /** The same blade, card and placement photographed from `count` camera poses (seeded), for repeatability. */

@@ -1,12 +1,12 @@
 import type { Cv } from './opencv'
-import type { GreyImage } from './image'
+import { sample, type GreyImage } from './image'
 import type { Calibration } from './calibrate'
 import { offsetPlaneHomography } from './camera'
 import { BEHIND_TABLE, localScale, rectify, stripToCard, type Strip } from './rectify'
 import { segmentBlade, type Silhouette } from './segment'
 import type { CardShade } from './shade'
 import { lowerPath, refineAlongNormals, smoothResample, trimExcursions, type EdgeSample } from './trace'
-import { EngineRefusal } from './errors'
+import { EngineRefusal, SURFACE_ADVICE } from './errors'
 import { dropOutliers, dropStrayRuns, startAtFirstTip } from './clean'
 import { restoreTips } from './tips'
 import type { Mat3, Pt } from './projective'
@@ -142,6 +142,7 @@ function traceSamples(strip: Strip, sil: Silhouette, tableV: number): EdgeSample
     tableAt: (u, v) => strip.inside[Math.min(strip.inside.length - 1, Math.max(0, Math.round(v) * w + Math.round(u)))] === BEHIND_TABLE,
     steelRatio: ratio,
     shadeAt: (u, v) => strip.shade[Math.min(strip.shade.length - 1, Math.max(0, Math.round(v) * w + Math.round(u)))],
+    tableDepthAt: (u, v) => sample({ data: strip.tableDepth, width: w, height: strip.img.height }, u, v),
   })
   return sharpOnly(samples)
 }
@@ -174,9 +175,9 @@ export function traceBlade(cv: Cv, img: GreyImage, cal: Calibration, zone: Blade
   if (blurMm > MAX_BLUR_MM || blurMm * photoPxPerMm > MAX_BLUR_PX)
     throw new EngineRefusal('TOO_BLURRY', `edge blur ${blurMm.toFixed(2)} mm, ${(blurMm * photoPxPerMm).toFixed(1)} px`)
   const xs = samples.map((s) => s.p[0] / pxPerMm)
-  if (samples.length < 100 || Math.max(...xs) - Math.min(...xs) < 150) throw new EngineRefusal('BLADE_NOT_FOUND', 'edge too short')
-  const traced = dropStrayRuns(dropOutliers(samples.map((s) => stripToCard(strip, s.p[0], s.p[1])), 0.5, 0.03), 0.8, 12)
-  if (longestGapMm(traced) > MAX_EDGE_GAP_MM) throw new EngineRefusal('BLADE_NOT_FOUND', 'runner not told apart from the table')
+  if (samples.length < 100 || Math.max(...xs) - Math.min(...xs) < 150) throw new EngineRefusal('BLADE_NOT_FOUND', 'edge too short', SURFACE_ADVICE)
+  const traced = dropStrayRuns(dropOutliers(samples.map((s) => stripToCard(strip, s.p[0], s.p[1])), 0.5, 0.03), 0.8, 1.5)
+  if (longestGapMm(traced) > MAX_EDGE_GAP_MM) throw new EngineRefusal('BLADE_NOT_FOUND', 'runner not told apart from the table', SURFACE_ADVICE)
   const toe = teethNear(traced, true, 45, 25, 0.5) >= teethNear(traced, false, 45, 25, 0.5) ? 'left' : 'right'
   const ordered = toe === 'left' ? traced : traced.reverse()
   const edge = restoreTips(startAtFirstTip(ordered, 0.5, TOE_PICK_ZONE_MM), { zoneMm: TOE_PICK_ZONE_MM })

@@ -7,7 +7,7 @@ export function cumulative(pts: Pt[]): Float64Array {
   return s
 }
 
-/** Distance of p from the chord a–b (0 when a = b). */
+/** Distance of p from the line through a and b, extended past them (from a when a = b). */
 function chordDistance(p: Pt, a: Pt, b: Pt): number {
   const len = Math.hypot(b[0] - a[0], b[1] - a[1])
   if (len === 0) return Math.hypot(p[0] - a[0], p[1] - a[1])
@@ -15,8 +15,10 @@ function chordDistance(p: Pt, a: Pt, b: Pt): number {
 }
 
 /**
- * Drops isolated outliers: a point is kept when its distance from the chord of its neighbours about `halfMm` away
- * is not far beyond what its own neighbourhood shows (so corners, where every point bends, survive).
+ * Drops isolated outliers. A point's bend is its distance from the line through the points up to `halfMm` before it,
+ * or from the line through those after it, whichever is nearer: a spike is far from both, while a point on a tooth's
+ * face next to a sharp corner lies on one of them. A point is kept when its bend is not far beyond what its own
+ * neighbourhood shows.
  */
 export function dropOutliers(pts: Pt[], halfMm: number, floorMm: number): Pt[] {
   const s = cumulative(pts)
@@ -26,7 +28,9 @@ export function dropOutliers(pts: Pt[], halfMm: number, floorMm: number): Pt[] {
   for (let i = 0; i < pts.length; i++) {
     while (s[i] - s[lo] > halfMm) lo++
     while (hi < pts.length - 1 && s[hi] - s[i] < halfMm) hi++
-    bend[i] = lo < i && hi > i ? chordDistance(pts[i], pts[lo], pts[hi]) : 0
+    const before = lo < i - 1 ? chordDistance(pts[i], pts[lo], pts[i - 1]) : Infinity
+    const after = hi > i + 1 ? chordDistance(pts[i], pts[i + 1], pts[hi]) : Infinity
+    bend[i] = Number.isFinite(Math.min(before, after)) ? Math.min(before, after) : 0
   }
   const keep: Pt[] = []
   const near: number[] = []
@@ -55,12 +59,16 @@ export function startAtFirstTip(pts: Pt[], riseMm: number, withinMm: number): Pt
   return pts
 }
 
-/** Drops short runs of points cut off from the rest by jumps over `jumpMm`: strays a search found on another face. */
-export function dropStrayRuns(pts: Pt[], jumpMm: number, minRun: number): Pt[] {
+/**
+ * Drops short runs of points cut off from the rest by jumps over `jumpMm`: strays a search found on another face.
+ * A run counts by its arc length, `minRunMm`: a toe-pick face between a dropped notch and a dropped tip is a short
+ * run of few points, yet it is what the base pick is rebuilt from.
+ */
+export function dropStrayRuns(pts: Pt[], jumpMm: number, minRunMm: number): Pt[] {
   const runs: Pt[][] = [[]]
   pts.forEach((p, i) => {
     if (i > 0 && Math.hypot(p[0] - pts[i - 1][0], p[1] - pts[i - 1][1]) > jumpMm) runs.push([])
     runs[runs.length - 1].push(p)
   })
-  return runs.filter((r) => r.length >= minRun).flat()
+  return runs.filter((r) => r.length >= 3 && cumulative(r)[r.length - 1] >= minRunMm).flat()
 }

@@ -22,8 +22,9 @@ const ADVICE: Record<RefusalCode, string> = {
 export class EngineRefusal extends Error {
   readonly code: RefusalCode
 
-  constructor(code: RefusalCode, detail?: string) {
-    super(ADVICE[code])
+  /** `advice` replaces the code's general sentence when the engine knows more precisely what to change. */
+  constructor(code: RefusalCode, detail?: string, advice?: string) {
+    super(advice ?? ADVICE[code])
     this.name = 'EngineRefusal'
     this.code = code
     if (detail) this.detail = detail
@@ -32,6 +33,12 @@ export class EngineRefusal extends Error {
   /** Technical detail for logs, never shown to the person. */
   detail?: string
 }
+
+/** BLADE_NOT_FOUND where the runner was found but not where it meets the surface it stands on. */
+export const SURFACE_ADVICE =
+  'We found the card and the blade, but not where the runner meets the surface it stands on. Stand the skate on a ' +
+  'plain surface clearly lighter or darker than the steel (a white sheet under dark steel, a dark cloth under bright ' +
+  'steel), then take the photo again.'
 
 /** The advice sentence for a refusal code. */
 export function adviceFor(code: RefusalCode): string {

@@ -23,8 +23,15 @@ export async function decodeGrey(bytes: Buffer): Promise<GreyImage> {
   }
 }
 
-/** Bilinear sample at a sub-pixel position (pixel centres at integers); NaN outside the image. */
-export function sample(img: GreyImage, x: number, y: number): number {
+/** Any row-major raster of numbers: an image, or a field computed per pixel. */
+export interface Raster {
+  data: ArrayLike<number>
+  width: number
+  height: number
+}
+
+/** Bilinear sample at a sub-pixel position (pixel centres at integers); NaN outside the raster. */
+export function sample(img: Raster, x: number, y: number): number {
   const x0 = Math.floor(x)
   const y0 = Math.floor(y)
   if (x0 < 0 || y0 < 0 || x0 >= img.width - 1 || y0 >= img.height - 1) return NaN

@@ -16,6 +16,11 @@ export interface Strip {
   inside: Uint8Array
   /** Expected brightness of blank card at each pixel (the card's shading carried into the strip). */
   shade: Float32Array
+  /**
+   * How far below the card's bottom edge the ray through each pixel meets the card plane, strip px (negative where it
+   * meets the card): its zero line is where the table starts to show behind the runner, known from the calibration.
+   */
+  tableDepth: Float32Array
   x0: number
   y0: number
   pxPerMm: number
@@ -57,6 +62,7 @@ export function rectify(cv: Cv, photo: GreyImage, hPlane: Mat3, d: Distortion, s
   const h = Math.max(2, Math.round((req.y1 - req.y0) * req.pxPerMm))
   const inside = new Uint8Array(w * h)
   const shade = new Float32Array(w * h)
+  const tableDepth = new Float32Array(w * h)
   const toCard = invert(req.cardHomography)
   const out = withMats((track) => {
     const src = track(new cv.Mat(photo.height, photo.width, cv.CV_8UC1))
@@ -74,12 +80,13 @@ export function rectify(cv: Cv, photo: GreyImage, hPlane: Mat3, d: Distortion, s
         my[i] = q[1]
         shade[i] = shadeAt(q[0], q[1])
         const inPhoto = q[0] >= 1 && q[1] >= 1 && q[0] <= photo.width - 2 && q[1] <= photo.height - 2
-        inside[i] = !inPhoto ? 0 : apply(toCard, und)[1] > req.tableY ? BEHIND_TABLE : BEHIND_CARD
+        tableDepth[i] = (apply(toCard, und)[1] - req.tableY) * req.pxPerMm
+        inside[i] = !inPhoto ? 0 : tableDepth[i] > 0 ? BEHIND_TABLE : BEHIND_CARD
       }
     }
     const dst = track(new cv.Mat())
     cv.remap(src, dst, mapX, mapY, cv.INTER_LINEAR, cv.BORDER_REPLICATE)
     return new Uint8Array(dst.data)
   })
-  return { img: { data: out, width: w, height: h }, inside, shade, x0: req.x0, y0: req.y0, pxPerMm: req.pxPerMm }
+  return { img: { data: out, width: w, height: h }, inside, shade, tableDepth, x0: req.x0, y0: req.y0, pxPerMm: req.pxPerMm }
 }

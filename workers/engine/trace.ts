@@ -1,4 +1,5 @@
 import { gaussianPeak, sample } from './image'
+import { fitEdgeWithBoundary } from './step-model'
 import type { Strip } from './rectify'
 
 type Pt = [number, number]
@@ -103,6 +104,8 @@ export interface NormalSearch {
   steelRatio: number
   /** Expected brightness of blank card at a strip pixel, grey levels. */
   shadeAt: (u: number, v: number) => number
+  /** How far below the card's bottom edge a strip point's ray meets the card plane, strip px (negative above it). */
+  tableDepthAt?: (u: number, v: number) => number
 }
 
 /**
@@ -163,36 +166,50 @@ function localStep(profile: Float64Array, at: number): number {
   return Math.abs(mean(k + 2, k + 4) - mean(k - 4, k - 2))
 }
 
-/** How close beyond an edge the card's bottom edge must come for the half-level rule, strip px. */
-const NEAR_TABLE_PX = 5
+/** Where along the normal through p (positions from … from + n − 1, px) the card's bottom edge lies; null if not there. */
+function boundaryAlong(depthAt: (u: number, v: number) => number, p: Pt, normal: Pt, from: number, n: number): number | null {
+  const to = from + n - 1
+  const d0 = depthAt(p[0] + normal[0] * from, p[1] + normal[1] * from)
+  const d1 = depthAt(p[0] + normal[0] * to, p[1] + normal[1] * to)
+  // The depth is an affine function of the card point, so nearly linear along a short normal.
+  return d0 < 0 && d1 > 0 ? from + ((to - from) * -d0) / (d1 - d0) : null
+}
+
+/** The card's bottom edge this close behind a gradient peak (in blur sigmas, plus px) biases it: fit the model there. */
+const BOUNDARY_SIGMAS = 4
+const BOUNDARY_MARGIN_PX = 2
+/** How far from the gradient peak the model fit may move the edge, px. */
+const MODEL_REACH_PX = 3
+
+interface NearBoundary {
+  index: number
+  coarse: Pt
+  normal: Pt
+  guess: number
+  boundary: number
+}
 
 /**
- * Where the profile crosses the level half-way between the steel's brightness (measured just inside the edge) and the
- * card's expected brightness, nearest to the gradient peak at `s` (px along the normal); null if it does not.
+ * Moves the samples whose gradient peak lies just above the card's bottom edge to the edge position the blurred
+ * steel–card–table model explains best (step-model.ts), using the blur measured on the samples clear of it.
  */
-function halfLevelCrossing(profile: Float64Array, from: number, s: number, steelGuess: number, card: number): number | null {
-  const k = Math.round(s - from)
-  let steel = 0
-  let n = 0
-  for (let j = Math.max(0, k - 6); j <= k - 3; j++) {
-    steel += profile[j]
-    n++
+function refitNearBoundary(strip: Strip, out: EdgeSample[], near: NearBoundary[], from: number, n: number): void {
+  if (!near.length) return
+  const flagged = new Set(near.map((q) => q.index))
+  const clear = out.filter((_, i) => !flagged.has(i)).map((q) => q.sigma).sort((a, b) => a - b)
+  const sigma = clear.length ? clear[Math.floor(clear.length / 2)] : 1
+  const profile = new Float64Array(n)
+  for (const q of near) {
+    crossProfile(strip, q.coarse, q.normal, from, profile)
+    const e = fitEdgeWithBoundary({ profile, from, boundary: q.boundary, sigma, guess: q.guess, reach: MODEL_REACH_PX })
+    if (e !== null) out[q.index].p = [q.coarse[0] + q.normal[0] * e, q.coarse[1] + q.normal[1] * e]
   }
-  const level = ((n ? steel / n : steelGuess) + card) / 2
-  for (let d = 0; d <= 3; d++) {
-    for (const j of [k + d, k - d - 1]) {
-      if (j < 0 || j + 1 >= profile.length) continue
-      const [a, b] = [profile[j] - level, profile[j + 1] - level]
-      if (a === b || a * b > 0) continue
-      return from + j + a / (a - b)
-    }
-  }
-  return null
 }
 
 /**
  * Refines each point of a coarse edge along its outward normal: samples the strip across the edge, differentiates,
- * and fits a Gaussian to the steel-to-card gradient peak. Points with no clear peak are dropped.
+ * and fits a Gaussian to the steel-to-card gradient peak. Points with no clear peak are dropped. Where the card's
+ * bottom edge lies just beyond the peak, the point is refitted with a model of both steps.
  */
 export function refineAlongNormals(strip: Strip, coarse: Pt[], search: NormalSearch): EdgeSample[] {
   const from = -Math.round(search.insidePx)
@@ -202,6 +219,7 @@ export function refineAlongNormals(strip: Strip, coarse: Pt[], search: NormalSea
   // Walking outward from the steel, brightness rises if the steel is darker than the card.
   const sign: 1 | -1 = search.darker ? 1 : -1
   const out: EdgeSample[] = []
+  const nearBoundary: NearBoundary[] = []
   for (let i = 0; i < coarse.length; i++) {
     const a = coarse[Math.max(0, i - 2)]
     const b = coarse[Math.min(coarse.length - 1, i + 2)]
@@ -222,13 +240,13 @@ export function refineAlongNormals(strip: Strip, coarse: Pt[], search: NormalSea
     // Steel against the table may differ from it by only a few grey levels: accept any clear peak there.
     const floor = onTable ? Math.min(0.08 * step, TABLE_MIN_GRADIENT) : 0.08 * step
     if (!peak || !Number.isFinite(peak.value) || Math.abs(peak.value) < floor) continue
-    let s = from + peak.at
-    // Just above the card's bottom edge, the card-to-table step that follows pulls a gradient peak toward the steel;
-    // the crossing of the level half-way between steel and card is much less affected, so it is used there.
-    const at = (d: number) => search.tableAt(coarse[i][0] + normal[0] * (s + d), coarse[i][1] + normal[1] * (s + d))
-    if (!at(0) && at(NEAR_TABLE_PX)) s = halfLevelCrossing(profile, from, s, shade * search.steelRatio, shade) ?? s
-    const p: Pt = [coarse[i][0] + normal[0] * s, coarse[i][1] + normal[1] * s]
-    out.push({ p, strength: Math.abs(peak.value), sigma: localStep(profile, peak.at) / (Math.abs(peak.value) * Math.sqrt(2 * Math.PI)) })
+    const s = from + peak.at
+    const sigma = localStep(profile, peak.at) / (Math.abs(peak.value) * Math.sqrt(2 * Math.PI))
+    const boundary = search.tableDepthAt ? boundaryAlong(search.tableDepthAt, coarse[i], normal, from, n) : null
+    if (boundary !== null && boundary > s - BOUNDARY_MARGIN_PX && boundary < s + BOUNDARY_SIGMAS * Math.max(1, sigma) + BOUNDARY_MARGIN_PX)
+      nearBoundary.push({ index: out.length, coarse: coarse[i], normal, guess: s, boundary })
+    out.push({ p: [coarse[i][0] + normal[0] * s, coarse[i][1] + normal[1] * s], strength: Math.abs(peak.value), sigma })
   }
+  refitNearBoundary(strip, out, nearBoundary, from, n)
   return out
 }

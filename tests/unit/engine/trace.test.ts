@@ -34,6 +34,7 @@ async function drawnStrip(steel: number, card: number): Promise<Strip> {
   }
   return {
     img: { data, width: W, height: H }, inside: new Uint8Array(W * H).fill(1), shade: new Float32Array(W * H).fill(card),
+    tableDepth: new Float32Array(W * H).fill(-1000),
     x0: 0, y0: 0, pxPerMm: 10,
   }
 }

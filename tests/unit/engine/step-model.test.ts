@@ -1,0 +1,41 @@
+import { describe, expect, it } from 'vitest'
+import { fitEdgeWithBoundary, normalCdf } from '../../../workers/engine/step-model'
+
+/** A profile across the edge: steel S up to e, card C up to b, table T beyond, blurred by a Gaussian of sigma. */
+function profile(e: number, b: number, sigma: number, levels: { S: number; C: number; T: number }, from: number, n: number): Float64Array {
+  const out = new Float64Array(n)
+  for (let k = 0; k < n; k++) {
+    const s = from + k
+    const card = e < b ? (levels.C - levels.S) * normalCdf((s - e) / sigma) + (levels.T - levels.C) * normalCdf((s - b) / sigma) : (levels.T - levels.S) * normalCdf((s - e) / sigma)
+    out[k] = levels.S + card + 0.8 * Math.sin(k * 2.3) // a little deterministic texture
+  }
+  return out
+}
+
+describe('edge fit with the card\u2019s bottom edge close behind', () => {
+  it('matches the standard normal table', () => {
+    // Standard normal CDF values as printed in statistical tables (from memory; e.g. the NIST/SEMATECH e-Handbook).
+    expect(normalCdf(0)).toBeCloseTo(0.5, 7)
+    expect(normalCdf(1)).toBeCloseTo(0.841345, 5)
+    expect(normalCdf(-1.96)).toBeCloseTo(0.024998, 5)
+  })
+
+  for (const gap of [0.5, 1.5, 3]) {
+    it(`finds a steel edge ${gap} px in front of the card's bottom edge to a tenth of a pixel`, () => {
+      const [e, sigma] = [0.3, 1.4]
+      const levels = { S: 95, C: 225, T: 120 }
+      const from = -20
+      const p = profile(e, e + gap, sigma, levels, from, 40)
+      // A guess two pixels off, as a biased gradient peak would give.
+      const fit = fitEdgeWithBoundary({ profile: p, from, boundary: e + gap, sigma, guess: e - 1.5, reach: 3 })
+      expect(fit).not.toBeNull()
+      expect(Math.abs((fit as number) - e)).toBeLessThan(0.1)
+    })
+  }
+
+  it('finds an edge past the card\u2019s bottom edge, steel against the table alone', () => {
+    const p = profile(2, 0, 1.2, { S: 95, C: 225, T: 160 }, -20, 40)
+    const fit = fitEdgeWithBoundary({ profile: p, from: -20, boundary: 0, sigma: 1.2, guess: 1, reach: 3 })
+    expect(Math.abs((fit as number) - 2)).toBeLessThan(0.1)
+  })
+})
