@@ -2,9 +2,11 @@
  * Accuracy bench: renders seeded synthetic photos (fixtures/synthetic), analyses each with the engine and compares the
  * metrics with the truth from each photo's construction. Prints a table per resolution with PASS/FAIL per bar, the
  * refusal cases and the repeatability of one blade over five camera poses. Uses two child processes (two cores).
- *   npm run bench:accuracy [-- --count 60]   (photos per resolution; default 60, so 120 in all)
+ *   npm run bench:accuracy [-- --count 60] [--scores FILE]   (photos per resolution, default 60, so 120 in all;
+ *   --scores also writes every photo's errors and ± as JSON, for calibrating the uncertainty model)
  */
 import { fork } from 'node:child_process'
+import { writeFileSync } from 'node:fs'
 import { fileURLToPath } from 'node:url'
 import { parseArgs } from 'node:util'
 import {
@@ -111,7 +113,9 @@ function repeatability(scores: PhotoScore[]): string[] {
 }
 
 async function main(): Promise<void> {
-  const { values } = parseArgs({ options: { count: { type: 'string', default: '60' } }, allowPositionals: true })
+  const { values } = parseArgs({
+    options: { count: { type: 'string', default: '60' }, scores: { type: 'string' } }, allowPositionals: true,
+  })
   const started = Date.now()
   const outcomes = await runAll(jobsFor(Number(values.count)), 2)
   process.stderr.write('\n')
@@ -129,6 +133,7 @@ async function main(): Promise<void> {
   lines.push('', ...repeatability(outcomes.filter((o) => o.job.kind === 'pose' && o.score).map((o) => o.score!)))
   const errors = outcomes.filter((o) => o.error)
   if (errors.length) lines.push('', `Crashed: ${errors.map((o) => `${JSON.stringify(o.job)} ${o.error}`).join('; ')}`)
+  if (values.scores) writeFileSync(values.scores, JSON.stringify(outcomes.filter((o) => o.score).map((o) => o.score), null, 1))
   lines.push('', `${outcomes.length} jobs in ${((Date.now() - started) / 1000).toFixed(0)} s`)
   process.stdout.write(`${lines.join('\n')}\n`)
 }

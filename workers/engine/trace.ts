@@ -178,8 +178,9 @@ function boundaryAlong(depthAt: (u: number, v: number) => number, p: Pt, normal:
 /** The card's bottom edge this close behind a gradient peak (in blur sigmas, plus px) biases it: fit the model there. */
 const BOUNDARY_SIGMAS = 4
 const BOUNDARY_MARGIN_PX = 2
-/** How far from the gradient peak the model fit may move the edge, px. */
+/** How far from the gradient peak the model fit searches, px; a fit that moves the edge farther is not trusted. */
 const MODEL_REACH_PX = 3
+const MODEL_MAX_SHIFT_PX = 1.5
 
 interface NearBoundary {
   index: number
@@ -191,19 +192,24 @@ interface NearBoundary {
 
 /**
  * Moves the samples whose gradient peak lies just above the card's bottom edge to the edge position the blurred
- * steel–card–table model explains best (step-model.ts), using the blur measured on the samples clear of it.
+ * steel–card–table model explains best (step-model.ts), using the blur measured on the samples clear of it. Where
+ * the two steps are too close to tell apart the fit wanders; a sample whose fit moves it more than a gradient peak's
+ * bias can be is dropped rather than kept at either place.
  */
-function refitNearBoundary(strip: Strip, out: EdgeSample[], near: NearBoundary[], from: number, n: number): void {
-  if (!near.length) return
+function refitNearBoundary(strip: Strip, out: EdgeSample[], near: NearBoundary[], from: number, n: number): EdgeSample[] {
+  if (!near.length) return out
   const flagged = new Set(near.map((q) => q.index))
   const clear = out.filter((_, i) => !flagged.has(i)).map((q) => q.sigma).sort((a, b) => a - b)
   const sigma = clear.length ? clear[Math.floor(clear.length / 2)] : 1
   const profile = new Float64Array(n)
+  const dropped = new Set<number>()
   for (const q of near) {
     crossProfile(strip, q.coarse, q.normal, from, profile)
     const e = fitEdgeWithBoundary({ profile, from, boundary: q.boundary, sigma, guess: q.guess, reach: MODEL_REACH_PX })
-    if (e !== null) out[q.index].p = [q.coarse[0] + q.normal[0] * e, q.coarse[1] + q.normal[1] * e]
+    if (e === null || Math.abs(e - q.guess) > MODEL_MAX_SHIFT_PX) dropped.add(q.index)
+    else out[q.index].p = [q.coarse[0] + q.normal[0] * e, q.coarse[1] + q.normal[1] * e]
   }
+  return out.filter((_, i) => !dropped.has(i))
 }
 
 /**
@@ -247,6 +253,5 @@ export function refineAlongNormals(strip: Strip, coarse: Pt[], search: NormalSea
       nearBoundary.push({ index: out.length, coarse: coarse[i], normal, guess: s, boundary })
     out.push({ p: [coarse[i][0] + normal[0] * s, coarse[i][1] + normal[1] * s], strength: Math.abs(peak.value), sigma })
   }
-  refitNearBoundary(strip, out, nearBoundary, from, n)
-  return out
+  return refitNearBoundary(strip, out, nearBoundary, from, n)
 }
