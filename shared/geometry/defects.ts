@@ -3,7 +3,7 @@ import { signedCurvature } from './circle-geometric'
 import { fitWindow, slice } from './radius-profile'
 import { curvatureSigma } from './uncertainty'
 import type { Vec2 } from './vec'
-import { radToDeg } from './vec'
+import { fitLineYOnX, radToDeg } from './vec'
 
 /** A flat spot is radius over 10 m (|curvature| under 1e-4 /mm, or hollowed) for 10 mm or more (DESIGN §4.6). */
 export const FLAT_CURVATURE = 1e-4
@@ -68,16 +68,7 @@ export function findFlatSpots(rocker: readonly Vec2[], startX: number, endX: num
 
 /** Slope of the least-squares line through the points (dy/dx) and its standard error per unit of point noise. */
 function lineSlope(pts: readonly Vec2[]): { slope: number; unitSigma: number } | null {
-  if (pts.length < 3) return null
-  const mx = pts.reduce((s, p) => s + p[0], 0) / pts.length
-  const my = pts.reduce((s, p) => s + p[1], 0) / pts.length
-  let sxx = 0
-  let sxy = 0
-  for (const p of pts) {
-    sxx += (p[0] - mx) ** 2
-    sxy += (p[0] - mx) * (p[1] - my)
-  }
-  return sxx > 0 ? { slope: sxy / sxx, unitSigma: 1 / Math.sqrt(sxx) } : null
+  return pts.length < 3 ? null : fitLineYOnX(pts)
 }
 
 export interface Kink {

@@ -63,3 +63,19 @@ export function interpolateY(points: readonly Vec2[], x: number): number | null 
   const [x1, y1] = points[hi]
   return x1 === x0 ? y0 : y0 + ((y1 - y0) * (x - x0)) / (x1 - x0)
 }
+
+/**
+ * Least-squares line y = slope·x + intercept through the points, with the slope's standard error per unit of point
+ * noise (1/√Σ(x − x̄)²); null when the x values do not spread.
+ */
+export function fitLineYOnX(points: readonly Vec2[]): { slope: number; intercept: number; unitSigma: number } | null {
+  const [mx, my] = centroid(points)
+  let sxx = 0
+  let sxy = 0
+  for (const p of points) {
+    sxx += (p[0] - mx) ** 2
+    sxy += (p[0] - mx) * (p[1] - my)
+  }
+  if (!(sxx > 0)) return null
+  return { slope: sxy / sxx, intercept: my - (sxy / sxx) * mx, unitSigma: 1 / Math.sqrt(sxx) }
+}
