@@ -47,6 +47,21 @@ export const uncertaintySchema = z
   })
   .describe('Uncertainty of each metric')
 
+export const runnerHeightStationSchema = z.object({
+  alongMm: z.number().describe('Station, mm along L from B'),
+  heightMm: z.number().describe('Runner height: from the running surface up to the runner\u2019s top edge, perpendicular to L, mm'),
+  plusMinusMm: plusMinus('the runner height'),
+})
+
+export const topEdgeSchema = z
+  .object({
+    cardMm: z
+      .array(z.array(cardPointSchema))
+      .describe('Stretches of the runner\u2019s top edge where it shows (between the mounting plates, and the tail), card mm'),
+    sigmaMm: z.number().nonnegative().describe('1σ location error of a top-edge point, mm (its scatter or the systematic floor)'),
+  })
+  .describe('The runner\u2019s top edge as traced: what sharpening does not touch, for runner height and registration')
+
 export const warningSchema = z.object({
   code: z.string().describe('Stable machine-readable code, e.g. LENGTH_MISMATCH'),
   message: z.string().describe('Plain-language explanation for people'),
@@ -94,6 +109,15 @@ export const analysisResultSchema = z.object({
       homography: homographySchema,
     })
     .describe('Stored edge, so overlays can be drawn and metrics recomputed'),
+  topEdge: topEdgeSchema
+    .nullable()
+    .optional()
+    .describe('Null when the top edge does not show in the photo; absent in results of engine versions before it was traced'),
+  runnerHeights: z
+    .array(runnerHeightStationSchema)
+    .nullable()
+    .optional()
+    .describe('Runner height every 10 mm along L between the rocker start and E, where the top edge shows; null when it shows nowhere there'),
   card: z.object({
     cardId: z.string().describe('Printed id of the scale card'),
     residualMm: z.number().nonnegative().describe('RMS marker reprojection residual, card mm'),
@@ -127,6 +151,8 @@ export type RadiusStation = z.infer<typeof radiusStationSchema>
 export type FlatSpot = z.infer<typeof flatSpotSchema>
 export type Kink = z.infer<typeof kinkSchema>
 export type Uncertainty = z.infer<typeof uncertaintySchema>
+export type RunnerHeightStationDto = z.infer<typeof runnerHeightStationSchema>
+export type TopEdge = z.infer<typeof topEdgeSchema>
 export type AnalysisWarning = z.infer<typeof warningSchema>
 export type Overrides = z.infer<typeof overridesSchema>
 export type AnalysisResult = z.infer<typeof analysisResultSchema>

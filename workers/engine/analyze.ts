@@ -5,10 +5,11 @@ import { extractEdge, type ExtractedEdge } from './extract'
 import { EngineRefusal } from './errors'
 import { SYSTEMATIC_EDGE_PX } from './blade'
 import { localScale } from './rectify'
+import { runnerHeightFields } from './runner-height-result'
 import type { Mat3, Pt } from './projective'
 
 /** Version of the measurement algorithm; stored with every analysis so results can be recomputed or compared. */
-export const ALGORITHM_VERSION = 'engine-1.0.0'
+export const ALGORITHM_VERSION = 'engine-1.1.0'
 
 export type { Discipline }
 
@@ -61,6 +62,9 @@ function buildResult(x: ExtractedEdge, options: AnalyzeOptions): AnalysisResult 
     ...metrics(measured),
     algorithmVersion: ALGORITHM_VERSION,
     edge: { cardMm: x.edge.edgeMm, homography: toRows(x.overlayHomography) },
+    ...runnerHeightFields(measured, {
+      bottomMm: x.edge.edgeMm, topEdge: x.topEdge, bottomSigmaMm: x.edge.edgeSigmaMm, calibrationSigmaMm: x.calibration.residualMm,
+    }),
     card: {
       cardId: x.layout.cardId, residualMm: x.calibration.residualMm, residualPx: x.calibration.residualPx,
       checkBarMm: options.checkBarMm ?? null,
@@ -107,9 +111,11 @@ export function recomputeFromEdge(
   const edge = result.edge.cardMm as Pt[]
   const toe = edge[0][0] <= edge[edge.length - 1][0] ? 'left' : 'right'
   const options: AnalyzeOptions = { ...blade, overrides }
-  const measured = profile(
-    { edgeMm: edge, toe, edgeSigmaMm: storedEdgeSigma(result), calibrationSigmaMm: result.card.residualMm },
-    options,
-  )
-  return analysisResultSchema.parse({ ...result, ...metrics(measured) })
+  const sigmas = { edgeSigmaMm: storedEdgeSigma(result), calibrationSigmaMm: result.card.residualMm }
+  const measured = profile({ edgeMm: edge, toe, ...sigmas }, options)
+  // Stations are along L from B, so they move with B; results from before the top edge was traced keep none.
+  const heights = result.topEdge === undefined ? {} : runnerHeightFields(measured, {
+    bottomMm: edge, topEdge: result.topEdge, bottomSigmaMm: sigmas.edgeSigmaMm, calibrationSigmaMm: sigmas.calibrationSigmaMm,
+  })
+  return analysisResultSchema.parse({ ...result, ...metrics(measured), ...heights })
 }

@@ -9,6 +9,8 @@ import { distort } from './camera'
 import { fitHomography } from './homography'
 import { apply, type Mat3, type Pt } from './projective'
 import { EngineRefusal } from './errors'
+import { findTopEdge } from './top-edge'
+import type { TopEdge } from '../../shared/schemas/analysis'
 
 /** Nominal distance of the runner's near face in front of the card: half a 4 mm runner (DESIGN §3). */
 export const RUNNER_OFFSET_MM = 2
@@ -63,6 +65,8 @@ export interface ExtractedEdge {
   /** Physical mm per printed card mm, from the check-bar reading (1 when none was entered). */
   printScale: number
   image: { width: number; height: number }
+  /** The runner's top edge where it shows (top-edge.ts), card mm; null when it does not. */
+  topEdge: TopEdge | null
 }
 
 /** A card layout scaled to the physical size the person's check-bar reading implies. */
@@ -111,7 +115,8 @@ async function locate(img: GreyImage, layouts: CardLayout[], printScale: number)
     }
     const shade = fitCardShade(img, calibration, scaledMarkers(layout, printScale))
     const edge = orExplainBlur(cv, full, true, () => traceBlade(cv, img, calibration, zone, RUNNER_OFFSET_MM, shade))
-    return { calibration, layout, edge }
+    const top = findTopEdge(cv, img, calibration, edge, shade, zone.tableY)
+    return { calibration, layout, edge, topEdge: top && { cardMm: top.stretchesMm, sigmaMm: top.sigmaMm } }
   })
 }
 
@@ -119,9 +124,9 @@ async function locate(img: GreyImage, layouts: CardLayout[], printScale: number)
 export async function extractEdge(bytes: Buffer, checkBarMm?: number | null): Promise<ExtractedEdge> {
   const printScale = checkBarMm ? checkBarMm / 100 : 1
   const img = await decodeGrey(bytes)
-  const { calibration, layout, edge } = await locate(img, [cardLayout('a4'), cardLayout('letter')], printScale)
+  const { calibration, layout, edge, topEdge } = await locate(img, [cardLayout('a4'), cardLayout('letter')], printScale)
   return {
     edge, calibration, layout, overlayHomography: overlayHomography(edge, calibration), printScale,
-    image: { width: img.width, height: img.height },
+    image: { width: img.width, height: img.height }, topEdge,
   }
 }
