@@ -15,11 +15,16 @@ import type { Baseline } from '../../shared/schemas/history'
 
 type Ctx = Pick<AppContext, 'db'>
 
-/** Why a single sharpening may not show (DESIGN.md §6), and what the registration rests on. */
-const NOTES = [
-  'Registered on the toe-pick teeth only: the runner\u2019s top edge is not traced yet, so heights far behind the picks are the least certain.',
-  'A sharpening removes about 0.05\u20130.1 mm, near one pixel of a 12 MP photo: single sharpenings may not be resolvable, trends over several are.',
-]
+/** What the registration rests on (DESIGN.md §6): the teeth, and the runner's top edge when both photos show it. */
+function registrationNote(on: readonly string[]): string {
+  return on.includes('runner top edge')
+    ? 'Registered on the toe-pick teeth and the runner\u2019s top edge, which sharpening does not touch: the top edge holds the tilt along the blade.'
+    : 'Registered on the toe-pick teeth only: the runner\u2019s top edge did not show in both photos, so heights far behind the picks are the least certain.'
+}
+
+/** Why a single sharpening may not show (DESIGN.md §6). */
+const RESOLUTION_NOTE =
+  'A sharpening removes about 0.05\u20130.1 mm, near one pixel of a 12 MP photo: single sharpenings may not be resolvable, trends over several are.'
 
 function measured(a: Analysis): MeasuredAnalysis {
   if (a.status !== 'measured' || !a.result) throw new ConflictError('That analysis has no measurement to compare yet.')
@@ -41,7 +46,7 @@ const fromAnalysis = ([a, b]: [MeasuredAnalysis, Blade]): ComparedInput =>
 function compareInputs(kind: ComparisonDto['kind'], first: ComparedInput, second: ComparedInput, extra: string[] = []): ComparisonDto {
   const info = (x: ComparedInput) => ({ analysisId: x.id, bladeId: x.bladeId, side: x.side, takenAt: x.takenAt.toISOString() })
   const cmp = compareAnalyses(first.result, second.result)
-  return { kind, first: info(first), second: info(second), ...cmp, notes: [...extra, ...NOTES] }
+  return { kind, first: info(first), second: info(second), ...cmp, notes: [...extra, registrationNote(cmp.registration.on), RESOLUTION_NOTE] }
 }
 
 function build(kind: ComparisonDto['kind'], first: [MeasuredAnalysis, Blade], second: [MeasuredAnalysis, Blade], extra: string[] = []): ComparisonDto {

@@ -14,6 +14,8 @@ import { readAnalysis } from '../../shared/targets/readings'
 import type { ResolvedTargets } from '../../shared/targets/resolve'
 import { overallStatus, rootRadiusOn, sharpeningsAt } from '../../shared/wear/history'
 import { projectWear } from '../../shared/wear/projection'
+import { runnerHeightSummary } from '../../shared/wear/runner-height'
+import { lowestStation } from '../../shared/geometry/runner-height'
 import { WEAR_RULE, assessWear } from '../../shared/wear/state'
 
 type Ctx = Pick<AppContext, 'db'>
@@ -45,6 +47,7 @@ function toRow(a: MeasuredAnalysis, blade: Blade, names: { skater: string; pair:
   const readings = readAnalysis(r, targets)
   const heel = readings[1]
   const overall = overallStatus(readings)
+  const runner = lowestStation(r.runnerHeights ?? [])
   return {
     analysisId: a.id, takenAt: a.queuedAt.toISOString(), skater: names.skater, pair: names.pair, bladeId: blade.id,
     side: blade.side, sizeIn: blade.sizeIn,
@@ -54,6 +57,7 @@ function toRow(a: MeasuredAnalysis, blade: Blade, names: { skater: string; pair:
     heelLiftMm: heel.value, heelLiftPmMm: heel.plusMinus, heelLiftReadAt: r.heelLiftStationMm !== null ? 'heel station' : 'heel end',
     contactLengthMm: r.contactLengthMm, contactLengthPmMm: r.uncertainty.contactLengthMm,
     toeRadiusMm: r.sectionRadii.toeMm, middleRadiusMm: r.sectionRadii.middleMm, heelRadiusMm: r.sectionRadii.heelMm,
+    runnerHeightMm: runner?.heightMm ?? null, runnerHeightPmMm: runner?.plusMinusMm ?? null,
     status: overall.status, statusText: overall.text, baseline: a.id === baselineId, algorithmVersion: a.algorithmVersion,
   }
 }
@@ -77,15 +81,18 @@ export async function bladeHistory(ctx: Ctx, blade: Blade, user: AuthUser | null
     const series = rows.map((r) => ({ sharpenings: r.sharpeningsSoFar, value: metric === 'touchPointMm' ? r.touchPointMm : r.heelLiftMm }))
     return { metric, band: resolved[metric].band, ...projectWear(series, resolved[metric].band) }
   })
-  const latest = analyses.length ? readAnalysis(analyses[analyses.length - 1].result, resolved).slice(0, 2) : []
-  // Runner height needs the top edge, which the engine does not trace yet: the wear state can say re-profile only.
+  const last = analyses.length ? analyses[analyses.length - 1].result : null
+  const latest = last ? readAnalysis(last, resolved).slice(0, 2) : []
+  const runner = runnerHeightSummary(analyses.find((a) => a.id === baseline?.analysisId)?.result ?? null, last)
+  // Runner height where the photos show the top edge; without it the wear state can say re-profile only.
   const wear = assessWear({
-    rockerStatuses: latest.map((r) => r.status), runnerHeightMm: null, baselineRunnerHeightMm: null, steelRemovedMm: [],
+    rockerStatuses: latest.map((r) => r.status), runnerHeightMm: runner.latest?.heightMm ?? null,
+    baselineRunnerHeightMm: runner.baseline?.heightMm ?? null, steelRemovedMm: runner.lossStations.map((s) => s.lossMm),
     minRunnerHeightMm: wearSettings.minRunnerHeightMm,
   })
   const history: BladeHistory = {
     bladeId: blade.id, baseline, rows, projections, wear, wearRule: WEAR_RULE,
-    runnerHeight: { measured: false, minMm: wearSettings.minRunnerHeightMm, shop: shop?.name ?? null },
+    runnerHeight: { measured: runner.latest !== null, minMm: wearSettings.minRunnerHeightMm, shop: shop?.name ?? null, ...runner },
     sharpenings: sharpenings.map((s) => ({
       sharpenedOn: s.sharpenedOn,
       sharpeningsSoFar: sharpeningsAt({ id: '', takenOn: s.sharpenedOn }, sharpenings, blade.sharpeningsAtRegistration),

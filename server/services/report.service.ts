@@ -13,6 +13,8 @@ import type { AnnotationDto } from '../../shared/schemas/analyses'
 import type { BladeHistory } from '../../shared/schemas/history'
 import { formatBand } from '../../shared/targets/bands'
 import { describeReading, readAnalysis } from '../../shared/targets/readings'
+import { lowestStation } from '../../shared/geometry/runner-height'
+import { describeRunnerHeight } from '../../shared/wear/runner-height'
 import type { ResolvedTargets } from '../../shared/targets/resolve'
 
 type Ctx = Pick<AppContext, 'db'>
@@ -26,6 +28,7 @@ const CAUTIONS = [
 const CHANGE_LABEL: Record<MetricChange['metric'], string> = {
   touchPointMm: 'Touch point', heelLiftMm: 'Heel lift', contactLengthMm: 'Contact length',
   toeRadiusMm: 'Toe section radius', middleRadiusMm: 'Middle section radius', heelRadiusMm: 'Heel section radius',
+  runnerHeightMm: 'Runner height (stations both show)',
 }
 
 const mm = (v: number | null, d = 1) => (v === null ? '-' : `${v.toFixed(d)} mm`)
@@ -56,7 +59,7 @@ function baselineSection(doc: Doc, base: MeasuredAnalysis, current: MeasuredAnal
     const values = removed.map((p) => p[1])
     const pms = cmp.steelRemoved.map((st) => st.plusMinusMm).filter((v): v is number => v !== null && Number.isFinite(v))
     const pm = pms.length ? `, each within ± ${Math.min(...pms).toFixed(2)} to ${Math.max(...pms).toFixed(2)} mm` : ''
-    paragraph(doc, `Steel removed along the rocker: ${Math.min(...values).toFixed(2)} to ${Math.max(...values).toFixed(2)} mm${pm} (registered on the toe-pick teeth; RMS ${cmp.registration.rmsMm.toFixed(3)} mm).`)
+    paragraph(doc, `Steel removed along the rocker: ${Math.min(...values).toFixed(2)} to ${Math.max(...values).toFixed(2)} mm${pm} (registered on the ${cmp.registration.on.join(' and ')}; RMS ${cmp.registration.rmsMm.toFixed(3)} mm).`)
     lineChart(doc, { series: [{ points: removed, colour: INK, label: 'steel removed, mm, against mm behind the base pick' }], heightPt: 70, yZeroLine: true, caption: 'Steel removed since the baseline.' })
   }
 }
@@ -71,6 +74,14 @@ function metricsSection(doc: Doc, r: AnalysisResult, resolved: ResolvedTargets):
   paragraph(doc, readings.map(describeReading).join('. ') + '.', { muted: true, size: 8 })
   const radius = (v: number | null) => (v === null ? 'straight' : `${v.toFixed(0)} mm (${mmToFeet(v).toFixed(1)} ft)`)
   keyValues(doc, [['Rocker radius, toe', radius(r.sectionRadii.toeMm)], ['Middle', radius(r.sectionRadii.middleMm)], ['Heel', radius(r.sectionRadii.heelMm)]])
+  keyValues(doc, [['Runner height', runnerHeightText(r)]])
+}
+
+/** The lowest runner height with its station and ±, or why the photo gives none. */
+function runnerHeightText(r: AnalysisResult): string {
+  const low = lowestStation(r.runnerHeights ?? [])
+  if (low) return `${low.heightMm.toFixed(2)} ± ${low.plusMinusMm.toFixed(2)} mm at ${low.alongMm.toFixed(0)} mm behind the base pick (lowest of ${r.runnerHeights!.length} stations where the top edge shows)`
+  return r.topEdge === undefined ? 'not measured (analysed before the top edge was traced)' : 'not measured: the runner\u2019s top edge does not show in this photo'
 }
 
 function profileSection(doc: Doc, r: AnalysisResult, resolved: ResolvedTargets): void {
@@ -135,6 +146,7 @@ function wearSection(doc: Doc, h: BladeHistory): void {
     paragraph(doc, `${label}: ${text}.`)
   }
   doc.moveDown(0.3)
+  paragraph(doc, describeRunnerHeight(h.runnerHeight, h.runnerHeight.minMm, h.runnerHeight.shop))
   paragraph(doc, h.wear.state ? `State: ${h.wear.state}. ${h.wear.reasons.join(' ')}` : 'State: no re-profile or replacement indicated.')
   paragraph(doc, `Rule: ${h.wearRule}`, { muted: true, size: 8 })
   const series = h.rows.map((r): [number, number] => [r.sharpeningsSoFar, r.touchPointMm])
@@ -151,11 +163,11 @@ export async function bladeReport(ctx: Ctx, user: AuthUser, bladeId: string): Pr
   heading(doc, 'Analyses')
   if (!h.rows.length) paragraph(doc, 'No measured analyses yet.', { muted: true })
   else {
-    table(doc, ['Date', 'Sharpenings', 'Touch point', 'Heel lift', 'Contact', 'Status'], h.rows.map((r) => [
+    table(doc, ['Date', 'Sharpenings', 'Touch point', 'Heel lift', 'Contact', 'Runner', 'Status'], h.rows.map((r) => [
       date(r.takenAt) + (r.baseline ? ' (baseline)' : ''), String(r.sharpeningsSoFar),
       `${r.touchPointMm.toFixed(1)} ± ${r.touchPointPmMm.toFixed(1)} mm`, `${r.heelLiftMm.toFixed(1)} ± ${r.heelLiftPmMm.toFixed(1)} mm`,
-      mm(r.contactLengthMm), r.statusText,
-    ]), [2.3, 1.5, 2.3, 2.3, 1.4, 2.6])
+      mm(r.contactLengthMm), r.runnerHeightMm === null ? '-' : `${r.runnerHeightMm.toFixed(1)} ± ${r.runnerHeightPmMm!.toFixed(1)} mm`, r.statusText,
+    ]), [2.1, 1.4, 2.2, 2.2, 1.3, 2.2, 2.4])
   }
   if (h.sharpenings.length) {
     heading(doc, 'Sharpenings')

@@ -10,7 +10,8 @@ export const comparedAnalysisSchema = z.object({
 })
 
 export const metricChangeSchema = z.object({
-  metric: z.enum(['touchPointMm', 'heelLiftMm', 'contactLengthMm', 'toeRadiusMm', 'middleRadiusMm', 'heelRadiusMm']),
+  metric: z.enum(['touchPointMm', 'heelLiftMm', 'contactLengthMm', 'toeRadiusMm', 'middleRadiusMm', 'heelRadiusMm', 'runnerHeightMm'])
+    .describe('runnerHeightMm: the mean runner height over the stations both analyses measured'),
   from: z.number().nullable(),
   to: z.number().nullable(),
   change: z.number().nullable().describe('second − first, mm'),

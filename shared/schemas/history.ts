@@ -1,5 +1,6 @@
 import { z } from 'zod'
 import { TARGET_STATUSES } from '../targets/read'
+import { runnerHeightStationSchema } from './analysis'
 
 /** One measured analysis in a blade's history, with its metrics read against the blade's targets. */
 export const historyRowSchema = z.object({
@@ -22,6 +23,8 @@ export const historyRowSchema = z.object({
   toeRadiusMm: z.number().nullable(),
   middleRadiusMm: z.number().nullable(),
   heelRadiusMm: z.number().nullable(),
+  runnerHeightMm: z.number().nullable().describe('Runner height at its lowest station, mm; null when the top edge did not show'),
+  runnerHeightPmMm: z.number().nullable(),
   status: z.enum(TARGET_STATUSES).describe('Worst status of touch point, heel lift and contact length'),
   statusText: z.string().describe('The status with the metrics that carry it'),
   baseline: z.boolean().describe('True for the analysis the blade is compared against'),
@@ -53,6 +56,8 @@ export const CSV_COLUMNS: readonly [string, keyof HistoryRow][] = [
   ['toe_radius_mm', 'toeRadiusMm'],
   ['middle_radius_mm', 'middleRadiusMm'],
   ['heel_radius_mm', 'heelRadiusMm'],
+  ['runner_height_mm', 'runnerHeightMm'],
+  ['runner_height_pm_mm', 'runnerHeightPmMm'],
   ['status', 'statusText'],
   ['baseline', 'baseline'],
   ['analysis_id', 'analysisId'],
@@ -105,9 +110,17 @@ export const bladeHistorySchema = z.object({
   }),
   wearRule: z.string().describe('The rule the wear state follows, as the page states it'),
   runnerHeight: z.object({
-    measured: z.boolean().describe('False until the engine traces the runner\u2019s top edge'),
+    measured: z.boolean().describe('True when the latest analysis measured the runner height (its top edge showed)'),
     minMm: z.number().nullable().describe('The applicable shop\u2019s minimum runner height, mm'),
     shop: z.string().nullable(),
+    latest: runnerHeightStationSchema.nullable().describe('Lowest station of the latest analysis'),
+    baseline: runnerHeightStationSchema.nullable().describe('Lowest station of the baseline analysis'),
+    lossStations: z.array(z.object({
+      alongMm: z.number(),
+      lossMm: z.number().describe('Baseline height − latest height at the station, mm (+ = lower now)'),
+      plusMinusMm: z.number(),
+    })).describe('Height lost since the baseline at each station both analyses measured'),
+    loss: z.object({ meanMm: z.number(), plusMinusMm: z.number() }).nullable().describe('Mean loss over those stations, mm'),
   }),
   sharpenings: z.array(z.object({
     sharpenedOn: z.string(),

@@ -12,7 +12,9 @@ export const WEAR_RULE =
   'Replace when the runner height is at or below the shop\u2019s minimum, or when bringing the rocker back to its ' +
   'shape would take the runner below it (the runner left after a re-profile is its height at the baseline minus ' +
   'the most steel removed anywhere along the blade). Re-profile when the touch point or heel lift is off target ' +
-  'and the runner has the height to bring it back.'
+  'and the runner has the height to bring it back. Runner height is read from the photo at stations every 10 mm ' +
+  'where the runner\u2019s top edge shows, and the lowest counts; the steel removed is the height lost at those ' +
+  'stations since the baseline.'
 
 export interface WearStateInput {
   /** Status of the rocker metrics (touch point, heel lift) on the latest analysis. */

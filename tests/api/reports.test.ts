@@ -1,6 +1,5 @@
 import type { Express } from 'express'
 import request from 'supertest'
-import { getDocument } from 'pdfjs-dist/legacy/build/pdf.mjs'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { createApp } from '../../server/app'
 import { Annotation } from '../../server/entities/annotation.entity'
@@ -8,24 +7,7 @@ import { resultOf, storeMeasured } from '../factories/analysis-results'
 import { skaterWithPair } from '../factories/records'
 import { signedInAs } from '../support/accounts'
 import { createTestContext } from '../support/test-context'
-
-/** The text of every page, read back with pdfjs-dist (a general-purpose PDF reader, not our writer). */
-async function pdfText(buffer: Buffer): Promise<string> {
-  const doc = await getDocument({ data: new Uint8Array(buffer), useSystemFonts: false, verbosity: 0 }).promise
-  let text = ''
-  for (let n = 1; n <= doc.numPages; n++) {
-    const content = await (await doc.getPage(n)).getTextContent()
-    text += content.items.map((i) => ('str' in i ? i.str : '')).join(' ') + '\n'
-  }
-  await doc.destroy()
-  return text.replace(/\s+/g, ' ')
-}
-
-const binary = (res: request.Response, cb: (err: Error | null, body: Buffer) => void) => {
-  const chunks: Buffer[] = []
-  res.on('data', (c: Buffer) => chunks.push(c))
-  res.on('end', () => cb(null, Buffer.concat(chunks)))
-}
+import { binary, pdfText } from '../support/pdf'
 
 describe('PDF reports', () => {
   let ctx: Awaited<ReturnType<typeof createTestContext>>

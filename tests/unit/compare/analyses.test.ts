@@ -102,3 +102,29 @@ describe('comparison response', () => {
     expect(dto.steelRemoved.every((s) => s.removedMm === null || (s.plusMinusMm! > 0 && s.insideNoise === false))).toBe(true)
   })
 })
+
+describe('registration on the runner\u2019s top edge', () => {
+  const noisy = (o: Parameters<typeof resultOf>[0]) => ({ ...resultOf(o), quality: { edgeResidualMm: 0.01, sharpness: 1, coverage: 1 } })
+
+  it('registers on the teeth and the top edge when both results carry it, and holds the tilt far behind the picks', () => {
+    // Same noise as the teeth-only case above (0.01 mm); the top edge adds 100 mm of straight steel behind the picks.
+    const withTop = compareAnalyses(noisy({ noiseMm: 0.01, seed: 3, topEdgeAboveLMm: 24 }), noisy({ removedMm: 0.1, placement: photo2, noiseMm: 0.01, seed: 4, topEdgeAboveLMm: 24 }))
+    const teethOnly = compareAnalyses(noisy({ noiseMm: 0.01, seed: 3 }), noisy({ removedMm: 0.1, placement: photo2, noiseMm: 0.01, seed: 4 }))
+    expect(withTop.registration.on).toEqual(['toe-pick teeth', 'runner top edge'])
+    expect(teethOnly.registration.on).toEqual(['toe-pick teeth'])
+    const worst = (c: typeof withTop) => Math.max(...c.steelRemoved.filter((s) => s.removedMm !== null).map((s) => Math.abs(s.removedMm! - 0.1)))
+    console.info(`worst steel-removed error: teeth ${worst(teethOnly).toFixed(4)} mm, teeth and top edge ${worst(withTop).toFixed(4)} mm`)
+    expect(worst(withTop)).toBeLessThan(0.02)
+    const lastPm = (c: typeof withTop) => c.steelRemoved.filter((s) => s.removedMm !== null).at(-1)!.plusMinusMm!
+    expect(lastPm(withTop)).toBeLessThan(lastPm(teethOnly) / 2)
+  })
+
+  it('lists the runner height change over the stations both measured, and none when one photo lacks the top edge', () => {
+    const changes = metricChanges(resultOf({ topEdgeAboveLMm: 24 }), resultOf({ topEdgeAboveLMm: 24, removedMm: 0.2 }))
+    const runner = changes.find((c) => c.metric === 'runnerHeightMm')!
+    expect(runner.change).toBeCloseTo(-0.2, 2) // the amount ground off by construction
+    expect(runner.insideNoise).toBe(false) // the fixture's ± is 2.5 × √(0.01² + 0.01² + 0.02²) ≈ 0.06 mm a side
+    const without = metricChanges(resultOf({ topEdgeAboveLMm: 24 }), resultOf()).find((c) => c.metric === 'runnerHeightMm')!
+    expect(without).toMatchObject({ from: null, to: null, change: null })
+  })
+})
