@@ -42,7 +42,7 @@ describe('compareAnalyses', () => {
     const errors = cmp.steelRemoved.filter((s) => s.removedMm !== null).map((s) => Math.abs(s.removedMm! - 0.1))
     console.info(`teeth-only registration, 0.01 mm noise: worst steel-removed error ${Math.max(...errors).toFixed(4)} mm`)
     // Measured here: about 0.07 mm at the heel, as large as one sharpening. The teeth span only ~21 mm, so a small
-    // rotation error grows along the blade; this bound records that weakness until a top edge is traced.
+    // rotation error grows along the blade; this bound records that weakness when the top edge does not show.
     expect(Math.max(...errors)).toBeLessThan(0.1)
     expect(errors[0]).toBeLessThan(0.03)
   })
