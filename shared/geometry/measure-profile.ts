@@ -34,6 +34,9 @@ export interface ProfileInput {
   overrides?: { basePickAlongMm?: number; heelEndAlongMm?: number }
 }
 
+/** Largest direction change taken for noise where the rocker leaves the pick gap (common practice, no published source). */
+const MAX_ROCKER_START_TOLERANCE_DEG = 15
+
 /** Heel station: nominal length − 45 mm behind B (our convention, DESIGN §4.4). */
 export const HEEL_STATION_OFFSET_MM = 45
 /** An edge spanning less than this fraction of the nominal length is not a blade's bottom edge. */
@@ -168,8 +171,10 @@ export function measureProfile(input: ProfileInput): ProfileMeasurement {
 
 /** The rocker proper, from where it leaves the pick gap to where the heel corner begins (blade frame, by x). */
 function rockerOf({ blade, angles, heel, touchIndex }: Located, edgeSigmaMm: number): { rocker: Vec2[]; startX: number; endX: number } {
-  // Tolerance: 5°, or 5σ of a direction difference (two ±0.5 mm chords, each σ·√2 / 1 mm) on a noisy edge.
-  const toleranceDeg = Math.max(5, radToDeg(5 * 2 * edgeSigmaMm))
+  // Tolerance: 5°, or 5σ of a direction difference (two ±0.5 mm chords, each σ·√2 / 1 mm) on a noisy edge — but
+  // never past 15°: the pick gap's rear face climbs at 30° or more, and a σ that includes systematic error (which
+  // moves whole stretches, not neighbouring points apart) would otherwise let the rocker run into the picks.
+  const toleranceDeg = Math.min(MAX_ROCKER_START_TOLERANCE_DEG, Math.max(5, radToDeg(5 * 2 * edgeSigmaMm)))
   const startIndex = rockerStartIndex(blade, angles, touchIndex, toleranceDeg)
   const endIndex = rockerEndIndex(blade, angles, heel.index, touchIndex)
   return { rocker: blade.slice(startIndex, endIndex + 1), startX: blade[startIndex][0], endX: blade[endIndex][0] }

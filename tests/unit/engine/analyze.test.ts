@@ -29,9 +29,37 @@ const CASES: { seed: number; resolution: Resolution; toe: 'left' | 'right'; ligh
   { seed: 508, resolution: '12mp', toe: 'right', lighter: false },
 ]
 
+/** Twelve-megapixel photos of unforced scenes, the first seeds of the accuracy bench. */
+const BENCH_SEEDS_12MP = [1000, 1001, 1002, 1003, 1004, 1005]
+
 describe('engine accuracy on generated photos', () => {
-  // Known failure, kept visible rather than deleted: the engine refuses most generated photos and misses the bars on
-  // the rest (see `npm run bench:accuracy`). The measurement issue stays open until this passes; un-skip it then.
+  // A guard against losing ground, not the brief: levels the engine reaches today on these photos, each a little above
+  // what it measured when set (12 MP: touch point median 0.64 mm, heel lift 0.34 mm; 3 MP: 5.2 mm, 0.96 mm; 12 of 14
+  // measured). The brief's own bars are the skipped test below.
+  it('keeps today\'s accuracy on a fixed set of generated photos', async () => {
+    const scores: PhotoScore[] = []
+    for (const seed of BENCH_SEEDS_12MP) scores.push(await scorePhoto(seed, '12mp'))
+    for (const c of CASES) {
+      const base = sampleScene(c.seed, { resolution: c.resolution, toe: c.toe })
+      scores.push(await scorePhoto(c.seed, c.resolution, c.lighter ? lighterSteel(base) : base))
+    }
+    const measured = scores.filter((s) => s.refused === null)
+    expect(measured.length).toBeGreaterThanOrEqual(12)
+    const at = (resolution: Resolution) => measured.filter((s) => s.resolution === resolution)
+    const median = (xs: number[]) => quantile(xs.map(Math.abs), 0.5)
+    expect(median(at('12mp').map((s) => s.touchErrMm))).toBeLessThanOrEqual(1.5)
+    expect(median(at('12mp').map((s) => s.heelErrMm))).toBeLessThanOrEqual(0.5)
+    expect(median(at('3mp').map((s) => s.touchErrMm))).toBeLessThanOrEqual(8)
+    expect(median(at('3mp').map((s) => s.heelErrMm))).toBeLessThanOrEqual(1.5)
+    expect(quantile(at('12mp').flatMap((s) => s.sectionRelErrs), 0.5)).toBeLessThanOrEqual(0.05)
+    // The ± must hold the truth (the brief asks 90 %).
+    const inside = measured.filter((s) => Math.abs(s.touchErrMm) <= s.touchPlusMinusMm && Math.abs(s.heelErrMm) <= s.heelPlusMinusMm)
+    expect(inside.length / measured.length).toBeGreaterThanOrEqual(0.9)
+  }, 300_000)
+
+
+  // Known failure, kept visible rather than deleted: the engine still misses the brief's length bars (see
+  // `npm run bench:accuracy`). The measurement issue stays open until this passes; un-skip it then.
   it.skip('meets the brief\'s bars at 12 MP and, twice as wide for lengths, at 3 MP', async () => {
     const scores: PhotoScore[] = []
     for (const c of CASES) {
