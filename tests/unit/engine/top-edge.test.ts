@@ -6,6 +6,8 @@ import { describe, expect, it } from 'vitest'
 import { getCv } from '../../../workers/engine/opencv'
 import { smoothed } from '../../../workers/engine/segment'
 import { traceTopEdge } from '../../../workers/engine/top-edge'
+import { recomputeFromEdge } from '../../../workers/engine/analyze'
+import { resultOf } from '../../factories/analysis-results'
 import type { Strip } from '../../../workers/engine/rectify'
 import type { Pt } from '../../../workers/engine/projective'
 import { quantile } from '../../bench/evaluate'
@@ -87,6 +89,26 @@ describe('top edge on drawn strips', () => {
   it('says nothing when the steel ends lower than a runner\u2019s top edge can be', async () => {
     expect(traceTopEdge(await drawnStrip({ steel: 95, card: 215, runnerMm: 11 }), bottom, 4)).toBeNull()
   }, 60_000)
+})
+
+describe('runner height recomputed from a stored result', () => {
+  const blade = { sizeIn: 10, discipline: 'freestyle' as const }
+
+  it('reads the stored top edge again in the frame of the moved landmarks, and leaves older results without it', () => {
+    const stored = resultOf({ topEdgeAboveLMm: 24 })
+    const same = recomputeFromEdge(stored, null, blade)
+    // The geometry finds B and T on the stored edge itself; the heights agree with the fixture's to a few microns.
+    expect(same.runnerHeights!.map((s) => s.alongMm)).toEqual(stored.runnerHeights!.map((s) => s.alongMm))
+    same.runnerHeights!.forEach((s, i) => expect(Math.abs(s.heightMm - stored.runnerHeights![i].heightMm)).toBeLessThan(0.01))
+    // B moved 5 mm toward the heel: every station is read 5 mm further along the blade than before, so the moved
+    // 100 mm station lies half-way between the first's 100 and 110 (the height is straight to 6 µm over 10 mm there).
+    const moved = recomputeFromEdge(stored, { basePickAlongMm: 5 }, blade)
+    const at = (r: typeof same, x: number) => r.runnerHeights!.find((s) => s.alongMm === x)!.heightMm
+    expect(Math.abs(at(moved, 100) - (at(same, 100) + at(same, 110)) / 2)).toBeLessThan(0.02)
+    expect(Math.abs(at(moved, 100) - at(same, 100))).toBeGreaterThan(0.05)
+    const older = recomputeFromEdge(resultOf(), null, blade)
+    expect('topEdge' in older || 'runnerHeights' in older).toBe(false)
+  })
 })
 
 describe('runner height on generated photos', () => {
