@@ -178,7 +178,9 @@ export function traceBlade(cv: Cv, img: GreyImage, cal: Calibration, zone: Blade
     throw new EngineRefusal('TOO_BLURRY', `edge blur ${blurMm.toFixed(2)} mm, ${(blurMm * photoPxPerMm).toFixed(1)} px`)
   const xs = samples.map((s) => s.p[0] / pxPerMm)
   if (samples.length < 100 || Math.max(...xs) - Math.min(...xs) < 150) throw new EngineRefusal('BLADE_NOT_FOUND', 'edge too short', SURFACE_ADVICE)
-  const traced = dropStrayRuns(dropOutliers(samples.map((s) => stripToCard(strip, s.p[0], s.p[1])), 0.5, 0.03), 0.8, 1.5)
+  // A jump of three photo pixels still joins a run: at 3 MP a dropped tooth tip leaves about that much.
+  const jumpMm = Math.max(0.8, 3 / photoPxPerMm)
+  const traced = dropStrayRuns(dropOutliers(samples.map((s) => stripToCard(strip, s.p[0], s.p[1])), 0.5, 0.03), jumpMm, 1.5)
   if (longestGapMm(traced) > MAX_EDGE_GAP_MM) throw new EngineRefusal('BLADE_NOT_FOUND', 'runner not told apart from the table', SURFACE_ADVICE)
   const toe = teethNear(traced, true, 45, 25, 0.5) >= teethNear(traced, false, 45, 25, 0.5) ? 'left' : 'right'
   const ordered = toe === 'left' ? traced : traced.reverse()
