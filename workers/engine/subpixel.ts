@@ -4,7 +4,7 @@ import type { DetectedMarker } from './markers'
 type Pt = [number, number]
 
 /** A line in normal form: n·p = c, |n| = 1. */
-interface Line {
+export interface Line {
   nx: number
   ny: number
   c: number
@@ -45,7 +45,7 @@ export function fitLine(points: Pt[]): Line | null {
   return fit(kept) ?? first
 }
 
-function intersect(a: Line, b: Line): Pt | null {
+export function intersect(a: Line, b: Line): Pt | null {
   const det = a.nx * b.ny - a.ny * b.nx
   if (Math.abs(det) < 1e-9) return null
   return [(a.c * b.ny - a.ny * b.c) / det, (a.nx * b.c - a.c * b.nx) / det]

@@ -1,4 +1,5 @@
 import { cumulative } from './clean'
+import { fitLine, intersect, type Line } from './subpixel'
 
 type Pt = [number, number]
 
@@ -57,38 +58,6 @@ export function douglasPeucker(pts: Pt[], from: number, to: number, tol: number)
   return out
 }
 
-interface Line {
-  p: Pt
-  d: Pt
-}
-
-/** Total-least-squares line through points. */
-function fitLine(pts: Pt[]): Line {
-  let mx = 0
-  let my = 0
-  for (const [x, y] of pts) {
-    mx += x / pts.length
-    my += y / pts.length
-  }
-  let sxx = 0
-  let sxy = 0
-  let syy = 0
-  for (const [x, y] of pts) {
-    sxx += (x - mx) ** 2
-    sxy += (x - mx) * (y - my)
-    syy += (y - my) ** 2
-  }
-  const theta = 0.5 * Math.atan2(2 * sxy, sxx - syy)
-  return { p: [mx, my], d: [Math.cos(theta), Math.sin(theta)] }
-}
-
-function intersect(a: Line, b: Line): Pt | null {
-  const det = a.d[0] * b.d[1] - a.d[1] * b.d[0]
-  if (Math.abs(det) < 1e-9) return null
-  const t = ((b.p[0] - a.p[0]) * b.d[1] - (b.p[1] - a.p[1]) * b.d[0]) / det
-  return [a.p[0] + a.d[0] * t, a.p[1] + a.d[1] * t]
-}
-
 interface Face {
   /** Arc-length span of the face along the edge, mm. */
   from: number
@@ -111,9 +80,11 @@ function facesOf(pts: Pt[], s: Float64Array, o: TipOptions, zoneArc: number): Fa
     const inner = pts.filter((_, i) => i >= a && i <= b && s[i] >= s[a] + o.trimMm && s[i] <= s[b] - o.trimMm)
     if (inner.length < 4) continue
     const line = fitLine(inner)
+    if (!line) continue
+    // The line's direction, (ny, −nx), turned to run the way the edge does.
     const chord: Pt = [pts[b][0] - pts[a][0], pts[b][1] - pts[a][1]]
-    const sign = chord[0] * line.d[0] + chord[1] * line.d[1] >= 0 ? 1 : -1
-    faces.push({ from: s[a], to: s[b], line, travel: [sign * line.d[0], sign * line.d[1]] })
+    const sign = chord[0] * line.ny - chord[1] * line.nx >= 0 ? 1 : -1
+    faces.push({ from: s[a], to: s[b], line, travel: [sign * line.ny, -sign * line.nx] })
   }
   return faces
 }
