@@ -78,6 +78,19 @@ export function table(doc: Doc, header: string[], rows: string[][], shares: numb
   doc.x = MARGIN
 }
 
+const CHART_HEADROOM_PT = 6
+
+/**
+ * The vertical exaggeration a chart uses: the one asked for when the heights fit, else the largest half step that
+ * fits (`fits` is the exaggeration that fills the height exactly), and below 1 the exact fit.
+ */
+export function fittedExaggeration(wanted: number, fits: number): number {
+  if (wanted <= fits) return wanted
+  return fits >= 1 ? Math.floor(fits * 2) / 2 : fits
+}
+
+const formatFactor = (f: number) => (Number.isInteger(f) ? String(f) : f >= 1 ? f.toFixed(1) : f.toFixed(2))
+
 export interface ChartSeries {
   points: readonly Vec2[]
   colour: string
@@ -86,29 +99,33 @@ export interface ChartSeries {
 }
 
 /**
- * A line chart in mm: x to the page width, y scaled by `yExaggeration` relative to x (stated on the chart, as a
- * rocker is only millimetres deep over hundreds). `band` shades an x interval in the pale accent (a target band);
- * `marks` are labelled ticks at x positions.
+ * A line chart in mm: x to the page width, y scaled by `yExaggeration` relative to x (a rocker is only millimetres
+ * deep over hundreds). Every point is drawn, never clipped: when the exaggerated heights (tall toe picks) would need
+ * more than `heightPt`, the exaggeration is lowered until they fit, and the caption states the one used. `band`
+ * shades an x interval in the pale accent (a target band); `marks` are labelled ticks at x positions.
  */
 export function lineChart(doc: Doc, opts: {
   series: ChartSeries[]; heightPt: number; yExaggeration?: number; band?: [number, number]
   marks?: { x: number; label: string }[]; caption: string; yZeroLine?: boolean
 }): void {
-  ensureRoom(doc, opts.heightPt + 40)
   const all = opts.series.flatMap((s) => s.points)
   if (!all.length) return
   const [x0, x1] = [Math.min(...all.map((p) => p[0])), Math.max(...all.map((p) => p[0]))]
   const [y0, y1] = [Math.min(0, ...all.map((p) => p[1])), Math.max(...all.map((p) => p[1]))]
   const sx = width(doc) / Math.max(x1 - x0, 1e-9)
-  const sy = opts.yExaggeration ? sx * opts.yExaggeration : opts.heightPt / Math.max(y1 - y0, 1e-9)
+  const exaggeration = opts.yExaggeration ? fittedExaggeration(opts.yExaggeration, opts.heightPt / (Math.max(y1 - y0, 1e-9) * sx)) : null
+  const sy = exaggeration ? sx * exaggeration : opts.heightPt / Math.max(y1 - y0, 1e-9)
+  const plotHeight = (y1 - y0) * sy
+  ensureRoom(doc, plotHeight + CHART_HEADROOM_PT + 40)
   const top = doc.y + 6
-  const base = top + Math.min(opts.heightPt, (y1 - y0) * sy)
+  // The headroom keeps the highest point (a toe pick's tip) off the chart's top edge.
+  const base = top + CHART_HEADROOM_PT + plotHeight
   const X = (x: number) => MARGIN + (x - x0) * sx
   const Y = (y: number) => base - (y - y0) * sy
   if (opts.band) doc.rect(X(opts.band[0]), top, (opts.band[1] - opts.band[0]) * sx, base - top + 4).fill(ACCENT_PALE)
   if (opts.yZeroLine) doc.moveTo(X(x0), Y(0)).lineTo(X(x1), Y(0)).lineWidth(0.5).strokeColor(STEEL).stroke()
   for (const s of opts.series) {
-    const pts = s.points.filter((p) => Y(p[1]) >= top - 1)
+    const pts = s.points
     if (!pts.length) continue
     doc.moveTo(X(pts[0][0]), Y(pts[0][1]))
     for (const p of pts.slice(1)) doc.lineTo(X(p[0]), Y(p[1]))
@@ -121,5 +138,6 @@ export function lineChart(doc: Doc, opts: {
     doc.text(m.label, X(m.x) - 20, base + 10, { width: 40, align: 'center' })
   }
   doc.y = base + 24
-  paragraph(doc, `${opts.caption} ${opts.series.map((s) => `${s.dash ? 'dashed' : 'solid'}: ${s.label}`).join('; ')}.`, { muted: true, size: 8 })
+  const scale = exaggeration === null ? '' : exaggeration === 1 ? 'Heights and lengths drawn to one scale. ' : `Heights drawn at ${formatFactor(exaggeration)} times the scale of lengths. `
+  paragraph(doc, `${scale}${opts.caption} ${opts.series.map((s) => `${s.dash ? 'dashed' : 'solid'}: ${s.label}`).join('; ')}.`, { muted: true, size: 8 })
 }

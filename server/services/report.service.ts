@@ -90,10 +90,12 @@ function profileSection(doc: Doc, r: AnalysisResult, resolved: ResolvedTargets):
   const tp = resolved.touchPointMm.band
   lineChart(doc, {
     series: [{ points: profile, colour: INK, label: 'bottom edge, blade frame (x from the base pick toward the heel, y up from the support line)' }],
-    heightPt: 120, yExaggeration: 5, yZeroLine: true,
+    // Up to 220 pt: at 5× the picks and heel of our blade model (14 and 17 mm above the support line) fit whole;
+    // taller picks lower the exaggeration rather than being cut off, and the caption states the one drawn.
+    heightPt: 220, yExaggeration: 5, yZeroLine: true,
     band: tp.min !== null && tp.max !== null ? [tp.min, tp.max] : undefined,
     marks: [{ x: 0, label: 'B' }, { x: r.touchPointMm, label: 'T' }, { x: r.landmarks.heelEnd.alongMm, label: 'E' }],
-    caption: 'Heights drawn 5 times larger than lengths; the shaded stretch is the touch-point target.',
+    caption: 'The shaded stretch is the touch-point target.',
   })
 }
 
