@@ -22,10 +22,12 @@ export interface TipOptions {
   maxBridgeMm: number
   /** Smallest turn between two faces that counts as a corner, degrees. */
   minTurnDeg: number
+  /** Pieces turning by less than this are one face, degrees. */
+  mergeTurnDeg: number
 }
 
 export const DEFAULT_TIP_OPTIONS: TipOptions = {
-  zoneMm: 45, toleranceMm: 0.1, minFaceMm: 1.4, trimMm: 0.5, maxBridgeMm: 2, minTurnDeg: 35,
+  zoneMm: 45, toleranceMm: 0.1, minFaceMm: 1.4, trimMm: 0.5, maxBridgeMm: 2, minTurnDeg: 35, mergeTurnDeg: 20,
 }
 
 /** Vertex indices of the Douglas–Peucker simplification of pts[from..to] (iterative, so long edges cannot overflow). */
@@ -58,6 +60,32 @@ export function douglasPeucker(pts: Pt[], from: number, to: number, tol: number)
   return out
 }
 
+/**
+ * Joins consecutive Douglas–Peucker pieces that turn by less than `maxTurnDeg` into one run (index pairs): a tooth's
+ * face traced with a slight bend near its blurred tip is split into pieces too short to fit on their own.
+ */
+function straightRuns(pts: Pt[], vertices: number[], maxTurnDeg: number): [number, number][] {
+  const runs: [number, number][] = []
+  const cosMax = Math.cos((maxTurnDeg * Math.PI) / 180)
+  const dir = (a: number, b: number): Pt => {
+    const len = Math.hypot(pts[b][0] - pts[a][0], pts[b][1] - pts[a][1]) || 1
+    return [(pts[b][0] - pts[a][0]) / len, (pts[b][1] - pts[a][1]) / len]
+  }
+  for (let k = 0; k + 1 < vertices.length; k++) {
+    const last = runs[runs.length - 1]
+    const piece = dir(vertices[k], vertices[k + 1])
+    if (last && last[1] === vertices[k]) {
+      const run = dir(last[0], last[1])
+      if (run[0] * piece[0] + run[1] * piece[1] >= cosMax) {
+        last[1] = vertices[k + 1]
+        continue
+      }
+    }
+    runs.push([vertices[k], vertices[k + 1]])
+  }
+  return runs
+}
+
 interface Face {
   /** Arc-length span of the face along the edge, mm. */
   from: number
@@ -74,8 +102,7 @@ function facesOf(pts: Pt[], s: Float64Array, o: TipOptions, zoneArc: number): Fa
   if (end < 2) return []
   const vertices = douglasPeucker(pts, 0, end, o.toleranceMm)
   const faces: Face[] = []
-  for (let k = 0; k + 1 < vertices.length; k++) {
-    const [a, b] = [vertices[k], vertices[k + 1]]
+  for (const [a, b] of straightRuns(pts, vertices, o.mergeTurnDeg)) {
     if (s[b] - s[a] < o.minFaceMm) continue
     const inner = pts.filter((_, i) => i >= a && i <= b && s[i] >= s[a] + o.trimMm && s[i] <= s[b] - o.trimMm)
     if (inner.length < 4) continue
