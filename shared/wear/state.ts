@@ -44,6 +44,13 @@ export function heightAfterRestore(baselineRunnerHeightMm: number | null, steelR
   return baselineRunnerHeightMm - Math.max(0, ...removed)
 }
 
+/** Why a re-profile's effect on the runner cannot be judged from the photos alone. */
+function missingForRestore(after: number | null, min: number | null): string {
+  if (after === null && min === null) return 'There is no baseline runner height to measure wear from and no shop minimum'
+  if (after === null) return 'There is no baseline runner height to measure wear from'
+  return 'The shop has set no minimum runner height'
+}
+
 /** Applies WEAR_RULE. */
 export function assessWear(input: WearStateInput): WearAssessment {
   const after = heightAfterRestore(input.baselineRunnerHeightMm, input.steelRemovedMm)
@@ -61,7 +68,7 @@ export function assessWear(input: WearStateInput): WearAssessment {
     reasons.push(
       after !== null && min !== null
         ? `The touch point or heel lift is off target; a re-profile would leave ${after.toFixed(2)} mm of runner, above the shop\u2019s minimum.`
-        : 'The touch point or heel lift is off target. The runner height is not known: have a technician check it before re-profiling.',
+        : `The touch point or heel lift is off target. ${missingForRestore(after, min)}: have a technician check the runner height before re-profiling.`,
     )
     return { state: 're-profile', reasons, heightAfterRestoreMm: after }
   }
