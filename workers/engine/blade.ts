@@ -5,11 +5,12 @@ import { offsetPlaneHomography } from './camera'
 import { BEHIND_TABLE, localScale, rectify, stripToCard, type Strip } from './rectify'
 import { segmentBlade, type Silhouette } from './segment'
 import type { CardShade } from './shade'
-import { lowerPath, refineAlongNormals, smoothResample, trimExcursions, type EdgeSample } from './trace'
+import { lowerPath, refineAlongNormals, sharpOnly, smoothResample, trimExcursions, type EdgeSample } from './trace'
 import { EngineRefusal, SURFACE_ADVICE } from './errors'
 import { dropOutliers, dropStrayRuns, startAtFirstTip } from './clean'
 import { restoreTips } from './tips'
 import type { Mat3, Pt } from './projective'
+import { median } from './stats'
 
 /** Where on the card the blade's silhouette is searched (card mm) and the card's table line. */
 export interface BladeZone {
@@ -42,11 +43,6 @@ const MARGIN_BELOW_TABLE_MM = 6
 /** Blur (Gaussian sigma of the edge) beyond which the edge cannot be located well enough, mm and photo px. */
 export const MAX_BLUR_MM = 0.45
 export const MAX_BLUR_PX = 6
-
-function median(values: number[]): number {
-  const s = [...values].sort((a, b) => a - b)
-  return s.length ? s[Math.floor(s.length / 2)] : NaN
-}
 
 /** Scatter of consecutive edge points about the local straight line through their neighbours (1 sigma, mm). */
 function edgeScatterMm(edge: Pt[]): number {
@@ -147,12 +143,6 @@ function traceSamples(strip: Strip, sil: Silhouette, tableV: number): EdgeSample
     tableDepthAt: (u, v) => sample({ data: strip.tableDepth, width: w, height: strip.img.height }, u, v),
   })
   return sharpOnly(samples)
-}
-
-/** Drops edge points far softer than the rest: shadow outlines, which blur with their depth, are not the steel. */
-function sharpOnly(samples: EdgeSample[]): EdgeSample[] {
-  const typical = median(samples.map((s) => s.sigma))
-  return samples.filter((s) => s.sigma <= 2 * typical + 0.5)
 }
 
 /**

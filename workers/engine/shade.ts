@@ -2,14 +2,10 @@ import { sample, type GreyImage } from './image'
 import type { Calibration, CardMarkers } from './calibrate'
 import { distort } from './camera'
 import { apply, type Pt } from './projective'
+import { median } from './stats'
 
 /** Expected brightness of blank card at a photo pixel (distorted px), from the card's light fall-off. */
 export type CardShade = (u: number, v: number) => number
-
-function median(values: number[]): number {
-  const s = [...values].sort((a, b) => a - b)
-  return s[Math.floor(s.length / 2)]
-}
 
 /** Blank card between neighbouring markers (midpoints of marker centres a column or a row apart), card mm. */
 function blankPoints(layout: CardMarkers): Pt[] {

@@ -3,9 +3,10 @@ import type { GreyImage } from './image'
 import type { Calibration } from './calibrate'
 import type { CardShade } from './shade'
 import { BEHIND_CARD, cardToStrip, localScale, rectify, stripToCard, type Strip } from './rectify'
-import { refineAlongNormals, type EdgeSample } from './trace'
+import { refineAlongNormals, sharpOnly, type EdgeSample } from './trace'
 import type { Mat3, Pt } from './projective'
 import { MAX_RUNNER_HEIGHT_MM, MIN_RUNNER_HEIGHT_MM, chooseLine, residual } from './top-edge-line'
+import { median } from './stats'
 
 /**
  * The runner's top edge where it shows between the mounting plates, in card mm on the runner's plane: the stretches
@@ -29,11 +30,6 @@ export const SYSTEMATIC_TOP_PX = 1
 const START_ABOVE_BOTTOM_MM = 8
 /** Columns are searched every this many mm along card x. */
 const COLUMN_STEP_MM = 0.5
-
-function median(values: number[]): number {
-  const s = [...values].sort((a, b) => a - b)
-  return s.length ? s[Math.floor(s.length / 2)] : NaN
-}
 
 /**
  * The bottom edge's lowest y (card mm, y down) in each 0.5 mm of card x — the running surface, not a pick's face —
@@ -130,9 +126,8 @@ function refine(strip: Strip, runs: Column[][], steelRatio: number): EdgeSample[
       insidePx: 2.5 * r, outsidePx: 2.5 * r, darker: steelRatio < 1, tableAt: () => false, steelRatio, shadeAt,
     }))
   }
-  const typical = median(out.map((s) => s.sigma))
   // Shadow outlines blur with their depth; the steel's own edge is as sharp as the bottom edge.
-  return out.filter((s) => s.sigma <= 2 * typical + 0.5)
+  return sharpOnly(out)
 }
 
 /** Keeps samples with card above them: 1.5–3 mm beyond the edge the strip is as bright as card, or as card in shadow. */

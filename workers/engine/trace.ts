@@ -1,5 +1,6 @@
 import { gaussianPeak, sample } from './image'
 import { fitEdgeWithBoundary } from './step-model'
+import { median } from './stats'
 import type { Strip } from './rectify'
 
 type Pt = [number, number]
@@ -88,6 +89,12 @@ export interface EdgeSample {
   /** Peak gradient (grey levels per strip px) and the edge's blur width (Gaussian sigma, strip px). */
   strength: number
   sigma: number
+}
+
+/** Drops edge points far softer than the rest: shadow outlines, which blur with their depth, are not the steel. */
+export function sharpOnly(samples: EdgeSample[]): EdgeSample[] {
+  const typical = median(samples.map((s) => s.sigma))
+  return samples.filter((s) => s.sigma <= 2 * typical + 0.5)
 }
 
 /** Weakest gradient accepted where the table is behind the edge, grey levels per px (about 3 sigma of its noise). */
@@ -199,8 +206,8 @@ interface NearBoundary {
 function refitNearBoundary(strip: Strip, out: EdgeSample[], near: NearBoundary[], from: number, n: number): EdgeSample[] {
   if (!near.length) return out
   const flagged = new Set(near.map((q) => q.index))
-  const clear = out.filter((_, i) => !flagged.has(i)).map((q) => q.sigma).sort((a, b) => a - b)
-  const sigma = clear.length ? clear[Math.floor(clear.length / 2)] : 1
+  const clear = out.filter((_, i) => !flagged.has(i)).map((q) => q.sigma)
+  const sigma = clear.length ? median(clear) : 1
   const profile = new Float64Array(n)
   const dropped = new Set<number>()
   for (const q of near) {
