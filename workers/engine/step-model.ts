@@ -1,3 +1,5 @@
+import { solve } from '../../shared/geometry/linalg'
+
 /**
  * Sub-pixel edge location by fitting a model of the blurred scene across the edge, for where a gradient peak is
  * biased: just above the card's bottom edge, the card-to-table step follows the steel's edge within the blur, and
@@ -33,36 +35,11 @@ function residual(profile: ArrayLike<number>, from: number, k0: number, k1: numb
     }
     btb += y * y
   }
-  const x = solve(ata, atb, m)
+  const x = solve(Array.from({ length: m }, (_, a) => Array.from(ata.subarray(a * m, a * m + m))), Array.from(atb))
   if (!x) return Infinity
   let fit = 0
   for (let a = 0; a < m; a++) fit += x[a] * atb[a]
   return btb - fit
-}
-
-/** Solves the small symmetric system A x = b by Gaussian elimination with partial pivoting; null when singular. */
-function solve(aIn: Float64Array, bIn: Float64Array, m: number): Float64Array | null {
-  const a = Float64Array.from(aIn)
-  const b = Float64Array.from(bIn)
-  for (let c = 0; c < m; c++) {
-    let p = c
-    for (let r = c + 1; r < m; r++) if (Math.abs(a[r * m + c]) > Math.abs(a[p * m + c])) p = r
-    if (Math.abs(a[p * m + c]) < 1e-9) return null
-    for (let k = 0; k < m; k++) [a[c * m + k], a[p * m + k]] = [a[p * m + k], a[c * m + k]]
-    ;[b[c], b[p]] = [b[p], b[c]]
-    for (let r = c + 1; r < m; r++) {
-      const f = a[r * m + c] / a[c * m + c]
-      for (let k = c; k < m; k++) a[r * m + k] -= f * a[c * m + k]
-      b[r] -= f * b[c]
-    }
-  }
-  const x = new Float64Array(m)
-  for (let r = m - 1; r >= 0; r--) {
-    let sum = b[r]
-    for (let k = r + 1; k < m; k++) sum -= a[r * m + k] * x[k]
-    x[r] = sum / a[r * m + r]
-  }
-  return x
 }
 
 export interface StepFitRequest {
