@@ -9,7 +9,7 @@ import { runnerHeightFields } from './runner-height-result'
 import type { Mat3, Pt } from './projective'
 
 /** Version of the measurement algorithm; stored with every analysis so results can be recomputed or compared. */
-export const ALGORITHM_VERSION = 'engine-1.1.0'
+export const ALGORITHM_VERSION = 'engine-1.2.0'
 
 export type { Discipline }
 

@@ -9,6 +9,7 @@ import { lowerPath, refineAlongNormals, sharpOnly, smoothResample, trimExcursion
 import { EngineRefusal, SURFACE_ADVICE } from './errors'
 import { dropOutliers, dropStrayRuns, startAtFirstTip } from './clean'
 import { restoreTips } from './tips'
+import { refineToothTips } from './tooth-tips'
 import type { Mat3, Pt } from './projective'
 import { median } from './stats'
 
@@ -174,7 +175,8 @@ export function traceBlade(cv: Cv, img: GreyImage, cal: Calibration, zone: Blade
   if (longestGapMm(traced) > MAX_EDGE_GAP_MM) throw new EngineRefusal('BLADE_NOT_FOUND', 'runner not told apart from the table', SURFACE_ADVICE)
   const toe = teethNear(traced, true, 45, 25, 0.5) >= teethNear(traced, false, 45, 25, 0.5) ? 'left' : 'right'
   const ordered = toe === 'left' ? traced : traced.reverse()
-  const edge = restoreTips(startAtFirstTip(ordered, 0.5, TOE_PICK_ZONE_MM), { zoneMm: TOE_PICK_ZONE_MM })
+  const restored = restoreTips(startAtFirstTip(ordered, 0.5, TOE_PICK_ZONE_MM), { zoneMm: TOE_PICK_ZONE_MM })
+  const edge = refineToothTips(strip, restored, TOE_PICK_ZONE_MM, blurMm * pxPerMm)
   return {
     edgeMm: edge,
     toe, planeHomography, blurMm, blurPx: blurMm * photoPxPerMm, edgeScatterMm: edgeScatterMm(edge),

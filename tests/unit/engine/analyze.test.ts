@@ -34,9 +34,9 @@ const BENCH_SEEDS_12MP = [1000, 1001, 1002, 1003, 1004, 1005]
 
 describe('engine accuracy on generated photos', () => {
   // A guard against losing ground, not the brief: levels the engine reaches today on these photos, each a little above
-  // what it measured when set (12 MP: touch point median 3.2 mm, heel lift 0.29 mm; 3 MP: 3.7 mm, 0.49 mm; 14 of 14
-  // measured; medians of so few photos move by millimetres with any change, see `npm run bench:accuracy` for the
-  // hundred-photo figures). The brief's own bars are the skipped test below.
+  // what it measured when last set (12 MP: touch point median 1.7 mm, heel lift 0.17 mm; 3 MP: 3.9 mm, 0.49 mm; 14 of
+  // 14 measured; sections 2.5 %; medians of so few photos move by millimetres with any change, see
+  // `npm run bench:accuracy` for the hundred-photo figures). The brief's own bars are the skipped test below.
   it('keeps today\'s accuracy on a fixed set of generated photos', async () => {
     const scores: PhotoScore[] = []
     for (const seed of BENCH_SEEDS_12MP) scores.push(await scorePhoto(seed, '12mp'))
@@ -48,11 +48,11 @@ describe('engine accuracy on generated photos', () => {
     expect(measured.length).toBeGreaterThanOrEqual(13)
     const at = (resolution: Resolution) => measured.filter((s) => s.resolution === resolution)
     const median = (xs: number[]) => quantile(xs.map(Math.abs), 0.5)
-    expect(median(at('12mp').map((s) => s.touchErrMm))).toBeLessThanOrEqual(4)
-    expect(median(at('12mp').map((s) => s.heelErrMm))).toBeLessThanOrEqual(0.5)
-    expect(median(at('3mp').map((s) => s.touchErrMm))).toBeLessThanOrEqual(6)
-    expect(median(at('3mp').map((s) => s.heelErrMm))).toBeLessThanOrEqual(1)
-    expect(quantile(at('12mp').flatMap((s) => s.sectionRelErrs), 0.5)).toBeLessThanOrEqual(0.05)
+    expect(median(at('12mp').map((s) => s.touchErrMm))).toBeLessThanOrEqual(2.5)
+    expect(median(at('12mp').map((s) => s.heelErrMm))).toBeLessThanOrEqual(0.3)
+    expect(median(at('3mp').map((s) => s.touchErrMm))).toBeLessThanOrEqual(5)
+    expect(median(at('3mp').map((s) => s.heelErrMm))).toBeLessThanOrEqual(0.8)
+    expect(quantile(at('12mp').flatMap((s) => s.sectionRelErrs), 0.5)).toBeLessThanOrEqual(0.04)
     // The ± must hold the truth (the brief asks 90 %).
     const inside = measured.filter((s) => Math.abs(s.touchErrMm) <= s.touchPlusMinusMm && Math.abs(s.heelErrMm) <= s.heelPlusMinusMm)
     expect(inside.length / measured.length).toBeGreaterThanOrEqual(0.9)
