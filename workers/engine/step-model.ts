@@ -1,4 +1,3 @@
-import { solve } from '../../shared/geometry/linalg'
 
 /**
  * Sub-pixel edge location by fitting a model of the blurred scene across the edge, for where a gradient peak is
@@ -18,28 +17,56 @@ export function normalCdf(x: number): number {
   return x >= 0 ? 0.5 * (1 + erf) : 0.5 * (1 - erf)
 }
 
-/** Least-squares residual of profile[k] (at positions from + k, k in [k0, k1]) on the given basis columns. */
-function residual(profile: ArrayLike<number>, from: number, k0: number, k1: number, basis: ((s: number) => number)[]): number {
-  const m = basis.length
-  const ata = new Float64Array(m * m)
-  const atb = new Float64Array(m)
-  let btb = 0
-  const row = new Float64Array(m)
+/** Determinant of the symmetric 3 × 3 matrix [[a, b, c], [b, d, f], [c, f, g]]. */
+function det3(a: number, b: number, c: number, d: number, f: number, g: number): number {
+  return a * (d * g - f * f) - b * (b * g - f * c) + c * (b * f - d * c)
+}
+
+/**
+ * Least-squares residual of profile[k] (at positions from + k, k in [k0, k1]) on the columns 1, Φ((s − e)/σ) and,
+ * when given, behind[k] (the card-to-table step): the normal equations are 2 × 2 or 3 × 3, solved in closed form
+ * (Cramer's rule) since the scan calls this some sixty times per edge point.
+ */
+function residual(profile: ArrayLike<number>, from: number, k0: number, k1: number, e: number, sigma: number, behind: Float64Array | null): number {
+  let n = 0
+  let se = 0
+  let sb = 0
+  let see = 0
+  let seb = 0
+  let sbb = 0
+  let sy = 0
+  let sey = 0
+  let sby = 0
+  let syy = 0
   for (let k = k0; k <= k1; k++) {
-    const s = from + k
-    for (let a = 0; a < m; a++) row[a] = basis[a](s)
+    const u = normalCdf((from + k - e) / sigma)
+    const v = behind ? behind[k] : 0
     const y = profile[k]
-    for (let a = 0; a < m; a++) {
-      atb[a] += row[a] * y
-      for (let c = 0; c < m; c++) ata[a * m + c] += row[a] * row[c]
-    }
-    btb += y * y
+    n++
+    se += u
+    sb += v
+    see += u * u
+    seb += u * v
+    sbb += v * v
+    sy += y
+    sey += u * y
+    sby += v * y
+    syy += y * y
   }
-  const x = solve(Array.from({ length: m }, (_, a) => Array.from(ata.subarray(a * m, a * m + m))), Array.from(atb))
-  if (!x) return Infinity
-  let fit = 0
-  for (let a = 0; a < m; a++) fit += x[a] * atb[a]
-  return btb - fit
+  if (!behind) {
+    const det = n * see - se * se
+    if (!(Math.abs(det) > 1e-12 * Math.max(1, n * see))) return Infinity
+    const x0 = (sy * see - se * sey) / det
+    const x1 = (n * sey - se * sy) / det
+    return syy - (x0 * sy + x1 * sey)
+  }
+  const det = det3(n, se, sb, see, seb, sbb)
+  if (!(Math.abs(det) > 1e-12 * Math.max(1, n * see * sbb))) return Infinity
+  // Cramer's rule: each unknown is the determinant with its column replaced by the right-hand side, over det.
+  const x0 = (sy * (see * sbb - seb * seb) - se * (sey * sbb - seb * sby) + sb * (sey * seb - see * sby)) / det
+  const x1 = (n * (sey * sbb - seb * sby) - sy * (se * sbb - seb * sb) + sb * (se * sby - sey * sb)) / det
+  const x2 = (n * (see * sby - sey * seb) - se * (se * sby - sey * sb) + sy * (se * seb - see * sb)) / det
+  return syy - (x0 * sy + x1 * sey + x2 * sby)
 }
 
 export interface StepFitRequest {
@@ -66,12 +93,13 @@ export function fitEdgeWithBoundary(r: StepFitRequest): number | null {
   const step = 0.1
   const costs: number[] = []
   const positions: number[] = []
+  // The card-to-table step does not move with e: its blurred profile is computed once.
+  const behind = new Float64Array(profile.length)
+  if (boundary !== null) for (let k = k0; k <= k1; k++) behind[k] = normalCdf((from + k - boundary) / sigma)
   for (let e = guess - reach; e <= guess + reach + 1e-9; e += step) {
-    const basis: ((s: number) => number)[] = [() => 1, (s) => normalCdf((s - e) / sigma)]
-    // While the steel's edge lies in front of the card's bottom edge, a strip of card shows between them.
-    if (boundary !== null && e < boundary) basis.push((s) => normalCdf((s - boundary) / sigma))
     positions.push(e)
-    costs.push(residual(profile, from, k0, k1, basis))
+    // While the steel's edge lies in front of the card's bottom edge, a strip of card shows between them.
+    costs.push(residual(profile, from, k0, k1, e, sigma, boundary !== null && e < boundary ? behind : null))
   }
   let best = 0
   for (let i = 1; i < costs.length; i++) if (costs[i] < costs[best]) best = i

@@ -18,8 +18,11 @@ export interface Line {
 /** Distance of a point from a line, perpendicular to it (+ below it in card y), mm. */
 export const residual = (l: Line, p: Pt) => (p[1] - (l.slope * p[0] + l.intercept)) / Math.sqrt(1 + l.slope * l.slope)
 
-/** Points within `tolMm` of a line. */
-const near = (line: Line, pts: Pt[], tolMm: number) => pts.filter((p) => Math.abs(residual(line, p)) <= tolMm)
+/** Points within `tolMm` of a line (the vertical offset against the tolerance scaled once, rather than each distance). */
+function near(line: Line, pts: Pt[], tolMm: number): Pt[] {
+  const limit = tolMm * Math.sqrt(1 + line.slope * line.slope)
+  return pts.filter((p) => Math.abs(p[1] - (line.slope * p[0] + line.intercept)) <= limit)
+}
 
 /**
  * The line through two of the points (at least `minSpanMm` apart in x) that gathers the most `score` among the
