@@ -4,9 +4,7 @@ import type { Blade } from '../entities/blade.entity'
 import { ConflictError } from '../errors'
 import type { Overrides } from '../../shared/schemas/analysis'
 import type { LandmarkChange, LandmarksBody } from '../../shared/schemas/analyses'
-// The engine's recompute is pure (stored edge in, metrics out; no image, no OpenCV call): the one place the server
-// reuses engine code. It belongs in shared/ and can move there without changing this file's callers.
-import { recomputeFromEdge } from '../../workers/engine/analyze'
+import { recomputeFromEdge } from '../../shared/geometry/stored-result'
 
 type Ctx = Pick<AppContext, 'db'>
 

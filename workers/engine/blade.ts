@@ -12,6 +12,7 @@ import { restoreTips } from './tips'
 import { refineToothTips } from './tooth-tips'
 import type { Mat3, Pt } from './projective'
 import { median } from './stats'
+import { SYSTEMATIC_EDGE_PX } from '../../shared/geometry/stored-result'
 
 /** Where on the card the blade's silhouette is searched (card mm) and the card's table line. */
 export interface BladeZone {
@@ -109,14 +110,6 @@ function checkCutOff(path: Pt[], strip: Strip, tableV: number): void {
   }
 }
 
-/**
- * Edge-location error that does not average out along the edge, photo px: shadows merging with the steel's step, the
- * card-to-table step nearby and the rebuilt pick tip shift stretches of the edge by a fraction of a pixel to a pixel,
- * more than the point-to-point scatter, so the ± must carry it. Calibrated on the accuracy bench (100 generated
- * photos): at 1.5 px the truth lay inside 90 % of the touch-point ± already at 0.47 of their width; 0.8 px gave 91 %
- * coverage at 12 MP, and 1.0 px keeps a margin as harder photos (now measured rather than refused) join in.
- */
-export const SYSTEMATIC_EDGE_PX = 1.0
 
 /** Height above the table line within which the runner's bottom edge lies (toe picks included), mm. */
 const RUNNER_BAND_MM = 30

@@ -10,7 +10,8 @@ import { tmpdir } from 'node:os'
 import { join } from 'node:path'
 import { renderScene, sampleScene, type Resolution, type Scene } from '../../../fixtures/synthetic'
 import { EXPECTED_REFUSAL, quantile, refusalCode, scorePhoto, type PhotoScore } from '../../bench/evaluate'
-import { analyzePhoto, recomputeFromEdge } from '../../../workers/engine/analyze'
+import { analyzePhoto } from '../../../workers/engine/analyze'
+import { recomputeFromEdge } from '../../../shared/geometry/stored-result'
 import { analysisResultSchema } from '../../../shared/schemas/analysis'
 
 /** Steel lighter than the card: the generator draws it for about a third of its scenes; here it is forced. */
