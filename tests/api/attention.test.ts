@@ -1,22 +1,16 @@
 import type { Express } from 'express'
 import request from 'supertest'
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { createApp } from '../../server/app'
+import { describe, expect, it } from 'vitest'
 import { attentionItemSchema } from '../../shared/schemas/attention'
 import { resultOf, storeMeasured } from '../factories/analysis-results'
 import { skaterWithPair } from '../factories/records'
 import { signedInAs } from '../support/accounts'
-import { createTestContext } from '../support/test-context'
+import { withTestApp, type TestContext } from '../support/test-app'
 
 describe('blades that need attention', () => {
-  let ctx: Awaited<ReturnType<typeof createTestContext>>
+  let ctx: TestContext
   let app: Express
-
-  beforeAll(async () => {
-    ctx = await createTestContext()
-    app = createApp(ctx)
-  })
-  afterAll(() => ctx.dispose())
+  withTestApp((c, a) => ([ctx, app] = [c, a]))
 
   it('answers 401 without a session', async () => {
     await request(app).get('/api/attention').expect(401)

@@ -1,21 +1,15 @@
 import type { Express } from 'express'
 import request from 'supertest'
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { createApp } from '../../server/app'
+import { describe, expect, it } from 'vitest'
 import { bladeSchema, pairSchema, sharpeningSchema } from '../../shared/schemas/blades'
 import { skaterWithPair } from '../factories/records'
 import { signedInAs } from '../support/accounts'
-import { createTestContext } from '../support/test-context'
+import { withTestApp, type TestContext } from '../support/test-app'
 
 describe('pairs, blades and sharpenings', () => {
-  let ctx: Awaited<ReturnType<typeof createTestContext>>
+  let ctx: TestContext
   let app: Express
-
-  beforeAll(async () => {
-    ctx = await createTestContext()
-    app = createApp(ctx)
-  })
-  afterAll(() => ctx.dispose())
+  withTestApp((c, a) => ([ctx, app] = [c, a]))
 
   it('creates a pair with its left and right blade, each with the pair size and discipline', async () => {
     const { client } = await signedInAs(app, ctx, ['skater'])
@@ -104,15 +98,10 @@ describe('pairs, blades and sharpenings', () => {
 })
 
 describe('GET /api/card/:paper.:format', () => {
-  let ctx: Awaited<ReturnType<typeof createTestContext>>
-
-  beforeAll(async () => {
-    ctx = await createTestContext()
-  })
-  afterAll(() => ctx.dispose())
+  let app: Express
+  withTestApp((_, a) => (app = a))
 
   it('serves the card as PDF, PNG and JSON without signing in', async () => {
-    const app = createApp(ctx)
     const pdf = await request(app).get('/api/card/a4.pdf').buffer(true).expect(200)
     expect(pdf.headers['content-type']).toBe('application/pdf')
     expect(Buffer.from(pdf.body).subarray(0, 5).toString()).toBe('%PDF-')

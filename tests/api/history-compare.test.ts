@@ -1,26 +1,20 @@
 import type { Express } from 'express'
 import request from 'supertest'
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { createApp } from '../../server/app'
+import { describe, expect, it } from 'vitest'
 import { comparisonSchema } from '../../shared/schemas/comparison'
 import { CSV_COLUMNS, bladeHistorySchema } from '../../shared/schemas/history'
 import { resultOf, storeMeasured } from '../factories/analysis-results'
 import { skaterWithPair } from '../factories/records'
 import { signedInAs } from '../support/accounts'
-import { createTestContext } from '../support/test-context'
+import { withTestApp, type TestContext } from '../support/test-app'
 
 const day = (n: number) => new Date(Date.UTC(2026, 9, 1 + n, 10))
 const photo2 = { scale: 1, rotationRad: (1.5 * Math.PI) / 180, tx: 12, ty: -5 }
 
 describe('history, wear, baseline, CSV and comparisons', () => {
-  let ctx: Awaited<ReturnType<typeof createTestContext>>
+  let ctx: TestContext
   let app: Express
-
-  beforeAll(async () => {
-    ctx = await createTestContext()
-    app = createApp(ctx)
-  })
-  afterAll(() => ctx.dispose())
+  withTestApp((c, a) => ([ctx, app] = [c, a]))
 
   /** A pair whose left blade was measured new, then after sharpenings that each took 0.1 mm and moved T back. */
   async function wornPair() {

@@ -1,23 +1,17 @@
 import type { Express } from 'express'
 import request from 'supertest'
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { createApp } from '../../server/app'
+import { describe, expect, it } from 'vitest'
 import { Annotation } from '../../server/entities/annotation.entity'
 import { resultOf, storeMeasured } from '../factories/analysis-results'
 import { skaterWithPair } from '../factories/records'
 import { signedInAs } from '../support/accounts'
-import { createTestContext } from '../support/test-context'
+import { withTestApp, type TestContext } from '../support/test-app'
 import { binary, pdfText } from '../support/pdf'
 
 describe('PDF reports', () => {
-  let ctx: Awaited<ReturnType<typeof createTestContext>>
+  let ctx: TestContext
   let app: Express
-
-  beforeAll(async () => {
-    ctx = await createTestContext()
-    app = createApp(ctx)
-  })
-  afterAll(() => ctx.dispose())
+  withTestApp((c, a) => ([ctx, app] = [c, a]))
 
   it('answers 401 without a session', async () => {
     const id = '00000000-0000-4000-8000-000000000000'

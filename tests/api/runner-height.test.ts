@@ -1,13 +1,12 @@
 import type { Express } from 'express'
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { createApp } from '../../server/app'
+import { describe, expect, it } from 'vitest'
 import { comparisonSchema } from '../../shared/schemas/comparison'
 import { CSV_COLUMNS, bladeHistorySchema } from '../../shared/schemas/history'
 import { resultOf, storeMeasured } from '../factories/analysis-results'
 import { skaterWithPair } from '../factories/records'
 import { signedInAs } from '../support/accounts'
 import { binary, pdfText } from '../support/pdf'
-import { createTestContext } from '../support/test-context'
+import { withTestApp, type TestContext } from '../support/test-app'
 
 const day = (n: number) => new Date(Date.UTC(2026, 9, 1 + n, 10))
 const photo2 = { scale: 1, rotationRad: (1.5 * Math.PI) / 180, tx: 12, ty: -5 }
@@ -19,14 +18,9 @@ const photo2 = { scale: 1, rotationRad: (1.5 * Math.PI) / 180, tx: 12, ty: -5 }
  * lift are held on target, so only the runner height can call for replacement.
  */
 describe('runner height in a blade\u2019s history', () => {
-  let ctx: Awaited<ReturnType<typeof createTestContext>>
+  let ctx: TestContext
   let app: Express
-
-  beforeAll(async () => {
-    ctx = await createTestContext()
-    app = createApp(ctx)
-  })
-  afterAll(() => ctx.dispose())
+  withTestApp((c, a) => ([ctx, app] = [c, a]))
 
   /** A blade measured new, then after grinding `removedMm`, shared with a shop whose minimum is `minMm`. */
   async function worn(removedMm: number, minMm: number) {

@@ -1,23 +1,17 @@
 import type { Express } from 'express'
 import request from 'supertest'
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { createApp } from '../../server/app'
+import { describe, expect, it } from 'vitest'
 import { bladeTargetsSchema, type ResolvedTargetDto } from '../../shared/schemas/targets'
 import { skaterWithPair } from '../factories/records'
 import { signedInAs } from '../support/accounts'
-import { createTestContext } from '../support/test-context'
+import { withTestApp, type TestContext } from '../support/test-app'
 
 const byMetric = (targets: ResolvedTargetDto[], metric: string) => targets.find((t) => t.metric === metric)!
 
 describe('target bands', () => {
-  let ctx: Awaited<ReturnType<typeof createTestContext>>
+  let ctx: TestContext
   let app: Express
-
-  beforeAll(async () => {
-    ctx = await createTestContext()
-    app = createApp(ctx)
-  })
-  afterAll(() => ctx.dispose())
+  withTestApp((c, a) => ([ctx, app] = [c, a]))
 
   it('answers 401 without a session', async () => {
     await request(app).get('/api/blades/00000000-0000-4000-8000-000000000000/targets').expect(401)
