@@ -26,30 +26,14 @@ export function undistort(d: Distortion, p: Pt): Pt {
 
 /** Undistorted px → distorted photo px (closed-form inverse of the division model). */
 export function distort(d: Distortion, p: Pt): Pt {
-  const out: Pt = [0, 0]
-  distortInto(d, p[0], p[1], out)
-  return out
-}
-
-/** distort() writing into `out`, for loops over millions of pixels that should not allocate a point each. */
-export function distortInto(d: Distortion, x: number, y: number, out: Pt): void {
-  const dx = x - d.cx
-  const dy = y - d.cy
+  const dx = p[0] - d.cx
+  const dy = p[1] - d.cy
   const ru = Math.hypot(dx, dy) / d.norm
-  if (d.k === 0 || ru < 1e-12) {
-    out[0] = x
-    out[1] = y
-    return
-  }
+  if (d.k === 0 || ru < 1e-12) return [p[0], p[1]]
   const disc = 1 - 4 * d.k * ru * ru
-  if (disc < 0) {
-    out[0] = NaN
-    out[1] = NaN
-    return
-  }
+  if (disc < 0) return [NaN, NaN]
   const rd = (1 - Math.sqrt(disc)) / (2 * d.k * ru)
-  out[0] = d.cx + (dx * rd) / ru
-  out[1] = d.cy + (dy * rd) / ru
+  return [d.cx + (dx * rd) / ru, d.cy + (dy * rd) / ru]
 }
 
 /** The camera pose of a plane, from its homography plane mm → undistorted px. */

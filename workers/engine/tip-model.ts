@@ -34,9 +34,6 @@ export interface TipModelFit {
   tip: Pt
   slopes: [number, number]
   sigma: number
-  cardEdgeV: number | null
-  /** Root-mean-square residual over the patch, grey levels. */
-  rms: number
   /** Steel-to-background contrast the fit found (card or table, whichever is nearer the steel's level), grey levels. */
   contrast: number
 }
@@ -161,10 +158,14 @@ function bases(p: Patch, tip: Pt, slopes: [number, number], s: number, cardEdgeV
   return cardEdgeV === null ? [steel, card, slopeU, slopeV] : [steel, card, table, slopeU, slopeV]
 }
 
-/** Least-squares levels for the bases; a basis with (almost) no weight in the patch keeps level 0. */
+/** Whether a basis image has weight in the patch (more than two pixels' worth); one without cannot be fitted. */
+function carriesWeight(column: Float64Array): boolean {
+  return column.reduce((a, x) => a + Math.abs(x), 0) > 2
+}
+
+/** Least-squares levels for the bases; a basis with no weight in the patch keeps level 0. */
 function levels(columns: Float64Array[], values: Float64Array): number[] {
-  const used = columns.map((c) => c.reduce((a, x) => a + Math.abs(x), 0) > 2)
-  const idx = columns.map((_, k) => k).filter((k) => used[k])
+  const idx = columns.map((_, k) => k).filter((k) => carriesWeight(columns[k]))
   const ata = idx.map((a) => idx.map((b) => columns[a].reduce((sum, x, i) => sum + x * columns[b][i], 0)))
   const atb = idx.map((a) => columns[a].reduce((sum, x, i) => sum + x * values[i], 0))
   const x = solve(ata, atb)
@@ -179,7 +180,7 @@ function render(columns: Float64Array[], lv: number[]): Float64Array {
   return out
 }
 
-/** Fits the model above; null when the patch is too small or the fit does not settle on a wedge. */
+/** Fits the model above; null when the patch is too small or the fit diverges. */
 export function fitTipModel(r: TipModelRequest): TipModelFit | null {
   const patch = patchAround(r.img, r.tip, r.radius)
   if (patch.us.length < 40) return null
@@ -211,10 +212,8 @@ export function fitTipModel(r: TipModelRequest): TipModelFit | null {
   const m = unpack(q)
   const cols = bases(patch, m.tip, m.slopes, m.s, m.card)
   const lv = levels(cols, patch.values)
-  const rendered = render(cols, lv)
-  let sse = 0
-  for (let i = 0; i < rendered.length; i++) sse += (rendered[i] - patch.values[i]) ** 2
-  const background = lv.slice(1, m.card === null ? 2 : 3).filter((_, k) => cols[k + 1].reduce((a, x) => a + x, 0) > 2)
+  // Card, and table when the card's edge is in the model: the levels the steel must stand out from.
+  const background = lv.slice(1, m.card === null ? 2 : 3).filter((_, k) => carriesWeight(cols[k + 1]))
   const contrast = Math.min(...background.map((b) => Math.abs(lv[0] - b)))
-  return { tip: m.tip, slopes: m.slopes, sigma: m.s, cardEdgeV: m.card, rms: Math.sqrt(sse / rendered.length), contrast }
+  return { tip: m.tip, slopes: m.slopes, sigma: m.s, contrast }
 }
