@@ -1,3 +1,4 @@
+import { isToothTip } from '../../shared/geometry/support-line'
 import { cumulative } from './clean'
 import { sample } from './image'
 import { cardToStrip, stripToCard, type Strip } from './rectify'
@@ -8,9 +9,8 @@ type Pt = [number, number]
 
 /** Teeth whose tips lie this far above the lowest one cannot hold the base pick (the next tooth rises 3 mm or more), mm. */
 const LOWEST_TIPS_BAND_MM = 1.5
-/** A tooth tip: the lowest point within this arc either side, with the edge rising this much within 2 mm both ways, mm. */
+/** A tooth tip is the lowest point within this arc either side, mm. */
 const TIP_NEIGHBOURHOOD_MM = 1
-const TIP_RISE_MM = 0.3
 /** Arc-length span either side of a tip whose points give its faces' first slopes, mm (past the blur's rounding). */
 const FACE_SPAN_MM: [number, number] = [0.3, 2]
 const FACE_FALLBACK_SPAN_MM = 3.5
@@ -33,25 +33,23 @@ function turnDeg(a: number, b: number): number {
 
 /**
  * Indices of the tooth tips among the edge's first `zoneMm` (card x from its toe end): points lower (y down) than
- * every point within TIP_NEIGHBOURHOOD_MM and than their immediate neighbours (the trace thins out at a tip), with
- * the edge rising TIP_RISE_MM within 2 mm (or by the first point past it) both ways.
+ * every point within TIP_NEIGHBOURHOOD_MM and than their immediate neighbours (the trace thins out at a tip), with a
+ * tooth's face rising from them both ways (the geometry's own test of a tooth tip, `isToothTip`).
  */
 function toothTips(edge: Pt[], s: Float64Array, zoneMm: number): number[] {
-  const out: number[] = []
-  const side = (i: number, step: -1 | 1): { lowest: boolean; rise: number } => {
-    let lowest = true
-    let rise = 0
-    for (let j = i + step; j >= 0 && j < edge.length; j += step) {
-      const arc = Math.abs(s[j] - s[i])
-      if ((arc <= TIP_NEIGHBOURHOOD_MM || j === i + step) && edge[j][1] >= edge[i][1]) lowest = false
-      rise = Math.max(rise, edge[i][1] - edge[j][1])
-      if (arc >= 2) break
-    }
-    return { lowest, rise }
+  // isToothTip reads a y-up edge toward its start: the edge flipped upright, forward for the front face, reversed
+  // for the back face.
+  const upright: Pt[] = edge.map(([x, y]) => [x, -y])
+  const reversed = [...upright].reverse()
+  const n = edge.length
+  const lowestOnSide = (i: number, step: -1 | 1): boolean => {
+    for (let j = i + step; j >= 0 && j < n && (j === i + step || Math.abs(s[j] - s[i]) <= TIP_NEIGHBOURHOOD_MM); j += step)
+      if (edge[j][1] >= edge[i][1]) return false
+    return true
   }
-  for (let i = 1; i < edge.length - 1 && Math.abs(edge[i][0] - edge[0][0]) <= zoneMm; i++) {
-    const [before, after] = [side(i, -1), side(i, 1)]
-    if (before.lowest && after.lowest && before.rise >= TIP_RISE_MM && after.rise >= TIP_RISE_MM) out.push(i)
+  const out: number[] = []
+  for (let i = 1; i < n - 1 && Math.abs(edge[i][0] - edge[0][0]) <= zoneMm; i++) {
+    if (lowestOnSide(i, -1) && lowestOnSide(i, 1) && isToothTip(upright, i) && isToothTip(reversed, n - 1 - i)) out.push(i)
   }
   return out
 }
