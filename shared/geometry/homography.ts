@@ -12,6 +12,14 @@ export function applyHomography(h: Homography, p: Vec2): Vec2 {
   return [(h[0][0] * p[0] + h[0][1] * p[1] + h[0][2]) / w, (h[1][0] * p[0] + h[1][1] * p[1] + h[1][2]) / w]
 }
 
+/** Local scale of h at p: the geometric mean of how much it stretches a unit step in x and in y (e.g. photo px per mm). */
+export function localScale(h: Homography, p: Vec2): number {
+  const a = applyHomography(h, p)
+  const b = applyHomography(h, [p[0] + 1, p[1]])
+  const c = applyHomography(h, [p[0], p[1] + 1])
+  return Math.sqrt(Math.abs((b[0] - a[0]) * (c[1] - a[1]) - (b[1] - a[1]) * (c[0] - a[0])))
+}
+
 /** Scales h so h[2][2] = 1 (or its largest entry to 1 when h[2][2] is 0), the usual unique representative. */
 export function normaliseHomography(h: Homography): Homography {
   const s = h[2][2] !== 0 ? h[2][2] : Math.max(...h.flat().map(Math.abs))

@@ -1,5 +1,5 @@
 import { analysisResultSchema, type AnalysisResult, type Overrides, type TopEdge } from '../schemas/analysis'
-import { applyHomography, type Homography } from './homography'
+import { localScale } from './homography'
 import { measureProfile, type Discipline, type ProfileMeasurement } from './measure-profile'
 import { runnerHeights } from './runner-height'
 import type { Vec2 } from './vec'
@@ -71,18 +71,10 @@ export function runnerHeightFields(m: ProfileMeasurement, src: RunnerHeightSourc
   return { topEdge: src.topEdge, runnerHeights: stations.length ? stations : null }
 }
 
-/** Photo px per card mm at a card point (geometric mean of the homography's local scale). */
-function photoPxPerMm(h: Homography, p: Vec2): number {
-  const a = applyHomography(h, p)
-  const b = applyHomography(h, [p[0] + 1, p[1]])
-  const c = applyHomography(h, [p[0], p[1] + 1])
-  return Math.sqrt(Math.abs((b[0] - a[0]) * (c[1] - a[1]) - (b[1] - a[1]) * (c[0] - a[0])))
-}
-
 /** The edge sigma the engine used, rebuilt from what the result stores (its residual and the photo's scale). */
 function storedEdgeSigma(result: AnalysisResult): number {
   const edge = result.edge.cardMm as Vec2[]
-  const pxPerMm = photoPxPerMm(result.edge.homography, edge[Math.floor(edge.length / 2)])
+  const pxPerMm = localScale(result.edge.homography, edge[Math.floor(edge.length / 2)])
   return Math.max(result.quality.edgeResidualMm, SYSTEMATIC_EDGE_PX / pxPerMm)
 }
 

@@ -4,7 +4,7 @@ import { ProfileError } from '../../shared/geometry/profile-error'
 import { metricFields, profileOfEdge, runnerHeightFields, type MeasureOptions, type ProfileInputs } from '../../shared/geometry/stored-result'
 import { extractEdge, type ExtractedEdge } from './extract'
 import { EngineRefusal } from './errors'
-import type { Mat3 } from './projective'
+import { toRows } from './projective'
 
 /** Version of the measurement algorithm; stored with every analysis so results can be recomputed or compared. */
 export const ALGORITHM_VERSION = 'engine-1.2.0'
@@ -19,10 +19,6 @@ export interface AnalyzeOptions extends MeasureOptions {
 export type AnalyzeOutcome =
   | { ok: true; result: AnalysisResult }
   | { ok: false; error: { code: RefusalCode; message: string } }
-
-function toRows(h: Mat3): number[][] {
-  return [h.slice(0, 3), h.slice(3, 6), h.slice(6, 9)]
-}
 
 function buildResult(x: ExtractedEdge, options: AnalyzeOptions): AnalysisResult {
   const inputs: ProfileInputs = {

@@ -110,7 +110,6 @@ function checkCutOff(path: Pt[], strip: Strip, tableV: number): void {
   }
 }
 
-
 /** Height above the table line within which the runner's bottom edge lies (toe picks included), mm. */
 const RUNNER_BAND_MM = 30
 

@@ -7,6 +7,11 @@ export function apply(h: Mat3, p: Pt): Pt {
   return [(h[0] * p[0] + h[1] * p[1] + h[2]) / w, (h[3] * p[0] + h[4] * p[1] + h[5]) / w]
 }
 
+/** The flat 3 × 3 matrix as rows (the shared geometry's and the stored result's form). */
+export function toRows(h: Mat3): number[][] {
+  return [h.slice(0, 3), h.slice(3, 6), h.slice(6, 9)]
+}
+
 export function multiply(a: Mat3, b: Mat3): Mat3 {
   const out = new Array<number>(9)
   for (let r = 0; r < 3; r++)

@@ -1,8 +1,9 @@
 import type { Cv } from './opencv'
 import { withMats } from './opencv'
 import type { GreyImage } from './image'
-import { apply, invert, type Mat3, type Pt } from './projective'
-import { distortInto, type Distortion } from './camera'
+import { localScale as homographyScale } from '../../shared/geometry/homography'
+import { apply, invert, toRows, type Mat3, type Pt } from './projective'
+import { distort, type Distortion } from './camera'
 import type { CardShade } from './shade'
 
 /**
@@ -34,12 +35,9 @@ export function cardToStrip(s: Strip, p: Pt): Pt {
   return [(p[0] - s.x0) * s.pxPerMm, (p[1] - s.y0) * s.pxPerMm]
 }
 
-/** Photo px per card mm at a card point (geometric mean of the local scale), for choosing a resampling density. */
+/** Photo px per card mm at a card point (the homography's local scale), for choosing a resampling density. */
 export function localScale(h: Mat3, p: Pt): number {
-  const a = apply(h, p)
-  const b = apply(h, [p[0] + 1, p[1]])
-  const c = apply(h, [p[0], p[1] + 1])
-  return Math.sqrt(Math.abs((b[0] - a[0]) * (c[1] - a[1]) - (b[1] - a[1]) * (c[0] - a[0])))
+  return homographyScale(toRows(h), p)
 }
 
 export interface StripRequest {
@@ -74,12 +72,9 @@ export function rectify(cv: Cv, photo: GreyImage, hPlane: Mat3, d: Distortion, s
     const mapY = track(new cv.Mat(h, w, cv.CV_32FC1))
     const mx = mapX.data32F as Float32Array
     const my = mapY.data32F as Float32Array
-    // The maps are smooth (a homography and the lens model), so they are computed exactly every STEP pixels along
-    // each row and interpolated linearly between: the interpolation error is well under a thousandth of a pixel, and a strip
-    // has millions of pixels.
-    const q: Pt = [0, 0]
-    const [h0, h1, h2, h3, h4, h5, h6, h7, h8] = hPlane
-    const [c3, c4, c5, c6, c7, c8] = toCard.slice(3)
+    // The maps are smooth (a homography and the lens model), so they are computed exactly every MAP_STEP pixels along
+    // each row and interpolated linearly between: the interpolation error is well under a thousandth of a pixel, and
+    // a strip has millions of pixels.
     const nodes = Math.ceil((w - 1) / MAP_STEP) + 1
     const nx = new Float64Array(nodes)
     const ny = new Float64Array(nodes)
@@ -88,15 +83,12 @@ export function rectify(cv: Cv, photo: GreyImage, hPlane: Mat3, d: Distortion, s
     for (let v = 0; v < h; v++) {
       const y = req.y0 + v / req.pxPerMm
       for (let j = 0; j < nodes; j++) {
-        const x = req.x0 + Math.min(j * MAP_STEP, w - 1) / req.pxPerMm
-        const wh = h6 * x + h7 * y + h8
-        const ux = (h0 * x + h1 * y + h2) / wh
-        const uy = (h3 * x + h4 * y + h5) / wh
-        distortInto(d, ux, uy, q)
+        const und = apply(hPlane, [req.x0 + Math.min(j * MAP_STEP, w - 1) / req.pxPerMm, y])
+        const q = distort(d, und)
         nx[j] = q[0]
         ny[j] = q[1]
         ns[j] = shadeAt(q[0], q[1])
-        nd[j] = ((c3 * ux + c4 * uy + c5) / (c6 * ux + c7 * uy + c8) - req.tableY) * req.pxPerMm
+        nd[j] = (apply(toCard, und)[1] - req.tableY) * req.pxPerMm
       }
       for (let u = 0; u < w; u++) {
         const j = Math.min(Math.floor(u / MAP_STEP), nodes - 2)

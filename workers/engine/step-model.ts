@@ -1,4 +1,3 @@
-
 /**
  * Sub-pixel edge location by fitting a model of the blurred scene across the edge, for where a gradient peak is
  * biased: just above the card's bottom edge, the card-to-table step follows the steel's edge within the blur, and
