@@ -20,7 +20,7 @@ export interface SupportHull {
  * convex hull in front of the rocker's lowest point that starts at a tooth tip among the toe picks. Its front end is
  * the base pick tip B, its rear end the provisional touch point. (On a clean edge this is simply the longest hull edge
  * in front of the lowest point; asking for a tooth tip keeps a traced rocker's small bumps, which add hull vertices
- * of their own, from posing as B.) Throws BLADE_CUT_OFF when no such bridge exists (no toe picks in the edge), and
+ * of their own, from posing as B, and so does asking for the pick gap under the bridge.) Throws BLADE_CUT_OFF when no such bridge exists (no toe picks in the edge), and
  * BLADE_NOT_FOUND when the picks are there but no bridge starts at a tooth tip (the trace lost the base pick).
  */
 export function findSupportHull(work: readonly Vec2[]): SupportHull {
@@ -43,7 +43,7 @@ export function findSupportHull(work: readonly Vec2[]): SupportHull {
     const length = dist(work[a], work[b])
     if (length < MIN_BRIDGE_MM) continue
     anyBridge = true
-    if (work[a][0] <= pickZoneEnd && length > bestLength && isToothTip(work, a)) {
+    if (work[a][0] <= pickZoneEnd && length > bestLength && isToothTip(work, a) && spansPickGap(work, a, b)) {
       bestLength = length
       best = { basePickIndex: a, touchIndex: b }
     }
@@ -53,6 +53,22 @@ export function findSupportHull(work: readonly Vec2[]): SupportHull {
   if (!best)
     throw new ProfileError('BLADE_NOT_FOUND', 'The base pick could not be told apart from the rocker in the traced edge.')
   return best
+}
+
+/**
+ * Least height of the pick gap over the bridge, mm: B → T spans the gap between the toe picks and the rocker, a few
+ * millimetres deep (common practice, no published source), while a bridge along the rocker stays within tenths of
+ * it. Where the trace lost the base pick and part of the gap, the rocker's start can pose as a tooth tip; it spans
+ * no gap.
+ */
+const MIN_GAP_HEIGHT_MM = 1
+
+/** Whether the edge between hull vertices a and b rises at least MIN_GAP_HEIGHT_MM above the line through them. */
+function spansPickGap(work: readonly Vec2[], a: number, b: number): boolean {
+  const u = unit(sub(work[b], work[a]))
+  const up = rotate(u, Math.PI / 2)
+  for (let i = a + 1; i < b; i++) if (dot(sub(work[i], work[a]), up) >= MIN_GAP_HEIGHT_MM) return true
+  return false
 }
 
 /** Share of the blade's length, from the toe end, within which the base pick lies (common practice, no published source). */

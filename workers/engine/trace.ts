@@ -195,7 +195,30 @@ interface NearBoundary {
   normal: Pt
   guess: number
   boundary: number
+  /** Expected brightness of the steel and of blank card at the point, grey levels. */
+  steelLevel: number
+  cardLevel: number
 }
+
+/**
+ * Whether the profile just inside a fitted edge (beyond the blur) looks like steel. Where the runner's shadow darkens
+ * the strip of card above the card's bottom edge, the card-to-table step can look like the steel's own edge; the
+ * shadowed card there is still far from the steel's brightness.
+ */
+function steelInside(profile: Float64Array, from: number, e: number, sigma: number, q: NearBoundary): boolean {
+  let sum = 0
+  let n = 0
+  for (let k = Math.floor(e - 2.5 * sigma - 2 - from); k <= Math.ceil(e - 2.5 * sigma - from); k++) {
+    if (k < 0 || k >= profile.length) continue
+    sum += profile[k]
+    n++
+  }
+  if (!n) return false
+  return Math.abs(sum / n - q.steelLevel) <= STEEL_LEVEL_TOLERANCE * Math.abs(q.cardLevel - q.steelLevel)
+}
+
+/** How far from the expected steel level the profile inside an edge may lie, as a share of the steel–card contrast. */
+const STEEL_LEVEL_TOLERANCE = 0.35
 
 /**
  * Moves the samples whose gradient peak lies just above the card's bottom edge to the edge position the blurred
@@ -213,7 +236,7 @@ function refitNearBoundary(strip: Strip, out: EdgeSample[], near: NearBoundary[]
   for (const q of near) {
     crossProfile(strip, q.coarse, q.normal, from, profile)
     const e = fitEdgeWithBoundary({ profile, from, boundary: q.boundary, sigma, guess: q.guess, reach: MODEL_REACH_PX })
-    if (e === null || Math.abs(e - q.guess) > MODEL_MAX_SHIFT_PX) dropped.add(q.index)
+    if (e === null || Math.abs(e - q.guess) > MODEL_MAX_SHIFT_PX || !steelInside(profile, from, e, sigma, q)) dropped.add(q.index)
     else out[q.index].p = [q.coarse[0] + q.normal[0] * e, q.coarse[1] + q.normal[1] * e]
   }
   return out.filter((_, i) => !dropped.has(i))
@@ -257,7 +280,7 @@ export function refineAlongNormals(strip: Strip, coarse: Pt[], search: NormalSea
     const sigma = localStep(profile, peak.at) / (Math.abs(peak.value) * Math.sqrt(2 * Math.PI))
     const boundary = search.tableDepthAt ? boundaryAlong(search.tableDepthAt, coarse[i], normal, from, n) : null
     if (boundary !== null && boundary > s - BOUNDARY_MARGIN_PX && boundary < s + BOUNDARY_SIGMAS * Math.max(1, sigma) + BOUNDARY_MARGIN_PX)
-      nearBoundary.push({ index: out.length, coarse: coarse[i], normal, guess: s, boundary })
+      nearBoundary.push({ index: out.length, coarse: coarse[i], normal, guess: s, boundary, steelLevel: shade * search.steelRatio, cardLevel: shade })
     out.push({ p: [coarse[i][0] + normal[0] * s, coarse[i][1] + normal[1] * s], strength: Math.abs(peak.value), sigma })
   }
   return refitNearBoundary(strip, out, nearBoundary, from, n)

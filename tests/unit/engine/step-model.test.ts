@@ -38,4 +38,15 @@ describe('edge fit with the card\u2019s bottom edge close behind', () => {
     const fit = fitEdgeWithBoundary({ profile: p, from: -20, boundary: 0, sigma: 1.2, guess: 1, reach: 3 })
     expect(Math.abs((fit as number) - 2)).toBeLessThan(0.1)
   })
+
+  it('keeps one step where the card’s bottom edge hides just behind the steel and the step is softer than expected', () => {
+    // The steel's edge 0.2 px past the card's bottom edge, its blur wider than the clear samples' median (1.2 px): a
+    // strip of card with the expected blur must not be invented to split the one softer step in two (a three-level
+    // fit alone put this edge 3 px into the steel).
+    for (const table of [70, 160]) {
+      const p = profile(0.2, 0, 2.2, { S: 123, C: 225, T: table }, -20, 40)
+      const fit = fitEdgeWithBoundary({ profile: p, from: -20, boundary: 0, sigma: 1.2, guess: 0.2, reach: 3 })
+      expect(Math.abs((fit as number) - 0.2)).toBeLessThan(0.1)
+    }
+  })
 })

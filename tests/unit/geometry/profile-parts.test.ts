@@ -43,6 +43,17 @@ describe('support line', () => {
     expect(() => findSupportHull(blunted)).toThrow(/told apart/)
   })
 
+  it('refuses a bridge from the rocker\u2019s start when the trace lost the base pick and the foot of the gap', () => {
+    // The pick gap's rear face traced down to x = 7.6, then nothing until the rocker at x = 10.2: across that hole the
+    // edge "rises" 1.6 mm within 2 mm, as a tooth's face would, but the bridge from x = 10.2 runs along the rocker
+    // and spans no gap (common practice, no published source: the pick gap is millimetres deep).
+    // The first rocker point traced a little low, as noise does, so the hull runs from it toward T.
+    const lost: Vec2[] = [[-12, 4], [-9, 6], [-6, 2.5], [-3, 4.5], [-0.2, 0.62], [3.1, 4.1], [5, 3.2], [7.6, 1.63],
+      [10.2, 0.05], ...arc(2000, 41, 10.4, 200)]
+    expect(isToothTip(lost, 8)).toBe(true)
+    expect(() => findSupportHull(lost)).toThrow(/told apart/)
+  })
+
   it('finds the tangent point from B to a circle: √(d² − r²) from B', () => {
     const t = lowerTangentPoint([0, 0], { cx: 40, cy: 2000, r: 2000 })!
     expect(t[0]).toBeCloseTo(40, 9)
