@@ -65,9 +65,13 @@ export function startAtFirstTip(pts: Pt[], riseMm: number, withinMm: number): Pt
  * run of few points, yet it is what the base pick is rebuilt from.
  */
 export function dropStrayRuns(pts: Pt[], jumpMm: number, minRunMm: number): Pt[] {
+  const gap = (a: Pt, b: Pt) => Math.hypot(a[0] - b[0], a[1] - b[1])
+  // A lone stray between two close neighbours would cut their run in two; it goes first, so the run holds.
+  const joined = pts.filter((p, i) => !(i > 0 && i + 1 < pts.length && gap(pts[i - 1], p) > jumpMm && gap(p, pts[i + 1]) > jumpMm &&
+    gap(pts[i - 1], pts[i + 1]) <= jumpMm))
   const runs: Pt[][] = [[]]
-  pts.forEach((p, i) => {
-    if (i > 0 && Math.hypot(p[0] - pts[i - 1][0], p[1] - pts[i - 1][1]) > jumpMm) runs.push([])
+  joined.forEach((p, i) => {
+    if (i > 0 && gap(p, joined[i - 1]) > jumpMm) runs.push([])
     runs[runs.length - 1].push(p)
   })
   return runs.filter((r) => r.length >= 3 && cumulative(r)[r.length - 1] >= minRunMm).flat()
