@@ -93,7 +93,9 @@ export interface EdgeSample {
 
 /** Drops edge points far softer than the rest: shadow outlines, which blur with their depth, are not the steel. */
 export function sharpOnly(samples: EdgeSample[]): EdgeSample[] {
-  const typical = median(samples.map((s) => s.sigma))
+  // A sample whose profile ran off the strip has no blur to read (NaN): it can neither set the typical blur (a NaN
+  // would sort anywhere and could make the median NaN, dropping every sample) nor pass the test.
+  const typical = median(samples.map((s) => s.sigma).filter(Number.isFinite))
   return samples.filter((s) => s.sigma <= 2 * typical + 0.5)
 }
 

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import { getCv } from '../../../workers/engine/opencv'
 import { segmentBlade } from '../../../workers/engine/segment'
-import { lowerPath, refineAlongNormals, smoothResample } from '../../../workers/engine/trace'
+import { lowerPath, refineAlongNormals, sharpOnly, smoothResample, type EdgeSample } from '../../../workers/engine/trace'
 import type { Strip } from '../../../workers/engine/rectify'
 
 const W = 1600
@@ -65,4 +65,18 @@ describe('edge trace', () => {
       expect(rms).toBeLessThan(0.06)
     }, 60_000)
   }
+})
+
+describe('soft samples', () => {
+  it('drops the shadow outlines, and a sample with no blur to read cannot make it drop every sample', () => {
+    // Along a smooth edge the blur changes slowly, so neighbouring samples come nearly in order.
+    const samples: EdgeSample[] = [1.0, 1.1, 1.15, 1.2, 1.3, 4.5].map((sigma, i) => ({ p: [i, 0], strength: 50, sigma }))
+    // One profile ran off the strip: its blur is NaN, wherever it comes (in the middle a sort leaves it in place).
+    for (const at of [0, 3, 6]) {
+      const withNaN = [...samples]
+      withNaN.splice(at, 0, { p: [9, 0], strength: 50, sigma: NaN })
+      const kept = sharpOnly(withNaN)
+      expect(kept.map((s) => s.sigma)).toEqual([1.0, 1.1, 1.15, 1.2, 1.3])
+    }
+  })
 })
