@@ -19,9 +19,10 @@ export interface SupportHull {
  * Finds the support line L on an edge in a y-up frame with the toe toward −x (mm): the longest edge of the lower
  * convex hull in front of the rocker's lowest point that starts at a tooth tip among the toe picks. Its front end is
  * the base pick tip B, its rear end the provisional touch point. (On a clean edge this is simply the longest hull edge
- * in front of the lowest point; asking for a tooth tip keeps a traced rocker's small bumps, which add hull vertices
- * of their own, from posing as B, and so does asking for the pick gap under the bridge.) Throws BLADE_CUT_OFF when no such bridge exists (no toe picks in the edge), and
- * BLADE_NOT_FOUND when the picks are there but no bridge starts at a tooth tip (the trace lost the base pick).
+ * in front of the lowest point; asking for a tooth tip and for the pick gap under the bridge keeps a traced rocker's
+ * small bumps and a rocker start behind a hole in the trace from posing as B.) Throws BLADE_CUT_OFF when no such
+ * bridge exists (no toe picks in the edge), and BLADE_NOT_FOUND when the picks are there but no bridge starts at a
+ * tooth tip over the gap (the trace lost the base pick).
  */
 export function findSupportHull(work: readonly Vec2[]): SupportHull {
   const xs = work.map((p) => p[0])

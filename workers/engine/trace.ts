@@ -162,17 +162,19 @@ function innermostPeak(grad: Float64Array, polarity: 1 | -1 | 0): { at: number; 
 
 /** Height of the step around a peak: mean brightness 2–4 px beyond it minus 2–4 px before it (clamped to the profile). */
 function localStep(profile: Float64Array, at: number): number {
-  const mean = (from: number, to: number) => {
-    let sum = 0
-    let n = 0
-    for (let k = Math.max(0, from); k <= Math.min(profile.length - 1, to); k++) {
-      sum += profile[k]
-      n++
-    }
-    return n ? sum / n : NaN
-  }
   const k = Math.round(at)
-  return Math.abs(mean(k + 2, k + 4) - mean(k - 4, k - 2))
+  return Math.abs(meanOf(profile, k + 2, k + 4) - meanOf(profile, k - 4, k - 2))
+}
+
+/** Mean of profile[from..to] (indices clamped to the profile), NaN when nothing is left. */
+function meanOf(profile: Float64Array, from: number, to: number): number {
+  let sum = 0
+  let n = 0
+  for (let k = Math.max(0, from); k <= Math.min(profile.length - 1, to); k++) {
+    sum += profile[k]
+    n++
+  }
+  return n ? sum / n : NaN
 }
 
 /** Where along the normal through p (positions from … from + n − 1, px) the card's bottom edge lies; null if not there. */
@@ -208,15 +210,8 @@ interface NearBoundary {
  * shadowed card there is still far from the steel's brightness.
  */
 function steelInside(profile: Float64Array, from: number, e: number, sigma: number, q: NearBoundary): boolean {
-  let sum = 0
-  let n = 0
-  for (let k = Math.floor(e - 2.5 * sigma - 2 - from); k <= Math.ceil(e - 2.5 * sigma - from); k++) {
-    if (k < 0 || k >= profile.length) continue
-    sum += profile[k]
-    n++
-  }
-  if (!n) return false
-  return Math.abs(sum / n - q.steelLevel) <= STEEL_LEVEL_TOLERANCE * Math.abs(q.cardLevel - q.steelLevel)
+  const level = meanOf(profile, Math.floor(e - 2.5 * sigma - 2 - from), Math.ceil(e - 2.5 * sigma - from))
+  return Math.abs(level - q.steelLevel) <= STEEL_LEVEL_TOLERANCE * Math.abs(q.cardLevel - q.steelLevel)
 }
 
 /** How far from the expected steel level the profile inside an edge may lie, as a share of the steel–card contrast. */
