@@ -22,6 +22,10 @@ const MAX_PATCH_RADIUS_MM = 1.6
 /** A fit that moves the tip further than this from its start, or turns a face more, found something else, mm and °. */
 const MAX_MOVE_MM = 0.45
 const MAX_TURN_DEG = 20
+/** More move allowed to a rebuilt tip that comes back toward the trace (moveAllowanceMm), mm. */
+const MAX_EXTRA_MOVE_MM = 0.5
+/** Spacing of the traced edge's points, mm: a neighbour farther than this from the tip marks a rebuilt tip. */
+const TRACED_SPACING_MM = 0.5
 /** The faces may meet this far from the traced tip when the trace lost the tip's last few tenths, mm. */
 const MAX_START_SHIFT_MM = 1
 /** Least steel-to-background contrast the fit must find, grey levels. */
@@ -71,6 +75,19 @@ function faceLine(edge: Pt[], s: Float64Array, i: number, side: -1 | 1): Line | 
   return line && Math.abs(line.nx) >= 0.5 ? line : null
 }
 
+/**
+ * How far a fit may move the tip, mm: MAX_MOVE_MM, and from a tip rebuilt where the faces meet beyond the trace, more
+ * when the fit moves it back toward the traced points: the rebuilt point extrapolates faces that may curve near the
+ * tip, and overshoots (by up to the extrapolated distance, at most MAX_EXTRA_MOVE_MM more).
+ */
+export function moveAllowanceMm(edge: Pt[], i: number, start: Pt, fitted: Pt): number {
+  const neighbours = [edge[i - 1], edge[i + 1]].filter(Boolean)
+  const nearest = (q: Pt) => Math.min(...neighbours.map((p) => Math.hypot(p[0] - q[0], p[1] - q[1])))
+  const extrapolated = nearest(start) - TRACED_SPACING_MM
+  if (!(extrapolated > 0) || !(nearest(fitted) < nearest(start))) return MAX_MOVE_MM
+  return MAX_MOVE_MM + Math.min(MAX_EXTRA_MOVE_MM, extrapolated)
+}
+
 /** Slope du/dv (= dx/dy) of a line n·p = c: its direction is (ny, −nx). */
 function slopeOf(line: Line): number {
   return line.ny / -line.nx
@@ -103,9 +120,10 @@ export function refineToothTips(strip: Strip, edge: Pt[], zoneMm: number, blurPx
     const radius = Math.min(MAX_PATCH_RADIUS_MM * r, Math.max(MIN_PATCH_RADIUS_PX, PATCH_RADIUS_MM * r))
     const fit = fitTipModel({ img: strip.img, tip, slopes, sigma: Math.max(0.5, blurPx), cardEdgeV: tip[1] - depth, radius })
     if (!fit || fit.contrast < MIN_CONTRAST) continue
-    if (Math.hypot(fit.tip[0] - tip[0], fit.tip[1] - tip[1]) > MAX_MOVE_MM * r) continue
+    const fitted = stripToCard(strip, fit.tip[0], fit.tip[1])
+    if (Math.hypot(fit.tip[0] - tip[0], fit.tip[1] - tip[1]) > moveAllowanceMm(edge, i, start, fitted) * r) continue
     if (turnDeg(fit.slopes[0], slopes[0]) > MAX_TURN_DEG || turnDeg(fit.slopes[1], slopes[1]) > MAX_TURN_DEG) continue
-    out[i] = stripToCard(strip, fit.tip[0], fit.tip[1])
+    out[i] = fitted
   }
   return out
 }

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import { douglasPeucker, restoreTips } from '../../../workers/engine/tips'
+import { moveAllowanceMm } from '../../../workers/engine/tooth-tips'
 
 type Pt = [number, number]
 
@@ -52,5 +53,22 @@ describe('restoring the toe picks\u2019 tips', () => {
   it('simplifies a polyline to its corners (Douglas–Peucker)', () => {
     const pts = sampled([[0, 0], [10, 0], [10, 10]], 0.5)
     expect(douglasPeucker(pts, 0, pts.length - 1, 0.01).map((i) => pts[i])).toEqual([[0, 0], [10, 0], [10, 10]])
+  })
+})
+
+describe('how far the tip model may move a tip', () => {
+  type Pt = [number, number]
+  // A traced tip: its neighbours a quarter millimetre away (card mm, y down).
+  const traced: Pt[] = [[-0.1, -0.25], [0, 0], [0.15, -0.2]]
+  // A tip rebuilt where curved faces meet, 1.8 mm beyond the trace on either side.
+  const rebuilt: Pt[] = [[-0.2, -1.1], [0.2, 0.7], [1.8, -1.4]]
+
+  it('keeps a traced tip within 0.45 mm', () => {
+    expect(moveAllowanceMm(traced, 1, traced[1], [0, -0.3])).toBeCloseTo(0.45, 9)
+  })
+
+  it('lets a rebuilt tip come back toward the trace by up to 0.5 mm more, but not go farther out', () => {
+    expect(moveAllowanceMm(rebuilt, 1, rebuilt[1], [0.05, -0.1])).toBeCloseTo(0.95, 9)
+    expect(moveAllowanceMm(rebuilt, 1, rebuilt[1], [0.2, 1.2])).toBeCloseTo(0.45, 9)
   })
 })
