@@ -1,3 +1,5 @@
+import { dist } from '../../shared/geometry/vec'
+
 type Pt = [number, number]
 
 /** Arc length from the first point to each point. */
@@ -65,13 +67,12 @@ export function startAtFirstTip(pts: Pt[], riseMm: number, withinMm: number): Pt
  * run of few points, yet it is what the base pick is rebuilt from.
  */
 export function dropStrayRuns(pts: Pt[], jumpMm: number, minRunMm: number): Pt[] {
-  const gap = (a: Pt, b: Pt) => Math.hypot(a[0] - b[0], a[1] - b[1])
   // A lone stray between two close neighbours would cut their run in two; it goes first, so the run holds.
-  const joined = pts.filter((p, i) => !(i > 0 && i + 1 < pts.length && gap(pts[i - 1], p) > jumpMm && gap(p, pts[i + 1]) > jumpMm &&
-    gap(pts[i - 1], pts[i + 1]) <= jumpMm))
+  const joined = pts.filter((p, i) => !(i > 0 && i + 1 < pts.length && dist(pts[i - 1], p) > jumpMm && dist(p, pts[i + 1]) > jumpMm &&
+    dist(pts[i - 1], pts[i + 1]) <= jumpMm))
   const runs: Pt[][] = [[]]
   joined.forEach((p, i) => {
-    if (i > 0 && gap(p, joined[i - 1]) > jumpMm) runs.push([])
+    if (i > 0 && dist(p, joined[i - 1]) > jumpMm) runs.push([])
     runs[runs.length - 1].push(p)
   })
   return runs.filter((r) => r.length >= 3 && cumulative(r)[r.length - 1] >= minRunMm).flat()

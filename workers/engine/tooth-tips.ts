@@ -1,4 +1,5 @@
 import { isToothTip } from '../../shared/geometry/support-line'
+import { dist } from '../../shared/geometry/vec'
 import { cumulative } from './clean'
 import { sample } from './image'
 import { cardToStrip, stripToCard, type Strip } from './rectify'
@@ -82,7 +83,7 @@ function faceLine(edge: Pt[], s: Float64Array, i: number, side: -1 | 1): Line | 
  */
 export function moveAllowanceMm(edge: Pt[], i: number, start: Pt, fitted: Pt): number {
   const neighbours = [edge[i - 1], edge[i + 1]].filter(Boolean)
-  const nearest = (q: Pt) => Math.min(...neighbours.map((p) => Math.hypot(p[0] - q[0], p[1] - q[1])))
+  const nearest = (q: Pt) => Math.min(...neighbours.map((p) => dist(p, q)))
   const extrapolated = nearest(start) - TRACED_SPACING_MM
   if (!(extrapolated > 0) || !(nearest(fitted) < nearest(start))) return MAX_MOVE_MM
   return MAX_MOVE_MM + Math.min(MAX_EXTRA_MOVE_MM, extrapolated)
