@@ -46,22 +46,29 @@ function crossing(pts: readonly Vec2[], ang: Float64Array, prev: number, i: numb
 /** Arc length over which a turn must hold to count as the heel's (mm); a bump in a trace turns back sooner. */
 export const HEEL_TURN_HOLD_MM = 1
 
-/** True when the direction stays beyond th from i for holdMm of arc length (or to the end of the edge). */
+/**
+ * True when the edge rises more steeply than th (its direction between th and 180° − th, y up) — the heel face
+ * climbs away from L. A trace that folds back on itself for a millimetre (points out of order along the rocker)
+ * also turns far from L, but runs backward without rising.
+ */
+const rising = (angle: number, th: number): boolean => Math.sin(angle) > Math.sin(th)
+
+/** True when the edge keeps rising beyond th from i for holdMm of arc length (or to the end of the edge). */
 function turnHolds(pts: readonly Vec2[], ang: Float64Array, i: number, th: number, holdMm: number): boolean {
   for (let j = i; j < pts.length && Math.hypot(pts[j][0] - pts[i][0], pts[j][1] - pts[i][1]) < holdMm; j++)
-    if (Math.abs(ang[j]) <= th) return false
+    if (!rising(ang[j], th)) return false
   return true
 }
 
 /**
  * Heel end E: the first point behind fromIndex (toward the heel) where the edge direction turns more than
- * thresholdDeg (45°) away from L and stays turned for 1 mm — the heel face; a speck or glitch in the trace turns
- * back within a fraction of that. Null when the edge never turns that far (the heel is not in the trace).
+ * thresholdDeg (45°) away from L, upward, and stays turned for 1 mm — the heel face; a speck or glitch in the trace
+ * turns back within a fraction of that. Null when the edge never turns that far (the heel is not in the trace).
  */
 export function findHeelEnd(pts: readonly Vec2[], ang: Float64Array, fromIndex: number, thresholdDeg = 45): EdgeMark | null {
   const th = degToRad(thresholdDeg)
   for (let i = fromIndex + 1; i < pts.length; i++)
-    if (Math.abs(ang[i]) > th && turnHolds(pts, ang, i, th, HEEL_TURN_HOLD_MM))
+    if (rising(ang[i], th) && turnHolds(pts, ang, i, th, HEEL_TURN_HOLD_MM))
       return { point: crossing(pts, ang, i - 1, i, th), index: i }
   return null
 }

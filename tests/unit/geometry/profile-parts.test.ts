@@ -106,6 +106,17 @@ describe('heel end, rocker start and station', () => {
     expect(e.point[0]).toBeCloseTo(last[0] + 5 * Math.SQRT1_2, 1)
   })
 
+  it('does not take a stretch traced twice (the trace folding back along the rocker) for the heel end', () => {
+    // The points run on to x ≈ 101.6, fall back to x ≈ 100 and run on again over the same stretch: for 1.6 mm the
+    // direction is ~180° from L, yet the edge does not rise.
+    const at = (p: Vec2) => p[0] >= 100
+    const i0 = edge.findIndex(at)
+    const i1 = edge.findIndex((p) => p[0] >= 101.6)
+    const folded = [...edge.slice(0, i1), ...edge.slice(i0, i1).reverse(), ...edge.slice(i0)]
+    const e = findHeelEnd(folded, directionAngles(folded), folded.findIndex((p) => p[0] >= 40))!
+    expect(e.point[0]).toBeCloseTo(last[0] + 5 * Math.SQRT1_2, 1)
+  })
+
   it('finds the rocker start behind a gentle ramp out of the pick gap as well as behind a steep face', () => {
     // A 30° ramp from the gap's top (3, 4.5) down to the rocker at x = 10: no 45° turn, but a clear corner.
     const ramp: Vec2[] = [[0, 0], [1.5, 2.25], [3, 4.5]]
