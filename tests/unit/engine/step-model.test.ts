@@ -2,12 +2,12 @@ import { describe, expect, it } from 'vitest'
 import { fitEdgeWithBoundary, normalCdf } from '../../../workers/engine/step-model'
 
 /** A profile across the edge: steel S up to e, card C up to b, table T beyond, blurred by a Gaussian of sigma. */
-function profile(e: number, b: number, sigma: number, levels: { S: number; C: number; T: number }, from: number, n: number): Float64Array {
+function profile(e: number, b: number, sigma: number, levels: { S: number; C: number; T: number }, from: number, n: number, texture = 0.8): Float64Array {
   const out = new Float64Array(n)
   for (let k = 0; k < n; k++) {
     const s = from + k
     const card = e < b ? (levels.C - levels.S) * normalCdf((s - e) / sigma) + (levels.T - levels.C) * normalCdf((s - b) / sigma) : (levels.T - levels.S) * normalCdf((s - e) / sigma)
-    out[k] = levels.S + card + 0.8 * Math.sin(k * 2.3) // a little deterministic texture
+    out[k] = levels.S + card + texture * Math.sin(k * 2.3) // a little deterministic texture
   }
   return out
 }
@@ -37,6 +37,16 @@ describe('edge fit with the card\u2019s bottom edge close behind', () => {
     const p = profile(2, 0, 1.2, { S: 95, C: 225, T: 160 }, -20, 40)
     const fit = fitEdgeWithBoundary({ profile: p, from: -20, boundary: 0, sigma: 1.2, guess: 1, reach: 3 })
     expect(Math.abs((fit as number) - 2)).toBeLessThan(0.1)
+  })
+
+  it('believes a strip of card 1.5–2 px wide that differs little from the table, on a noisier profile', () => {
+    // Dark steel, then card only 20–30 levels brighter than the table: one step of free blur across both puts the
+    // edge half a pixel into the steel (0.47–0.58 px with the evidence a narrower strip needs).
+    for (const [gap, card] of [[1.5, 140], [2, 130]]) {
+      const p = profile(0, gap, 1.2, { S: 60, C: card, T: 110 }, -20, 40, 4)
+      const fit = fitEdgeWithBoundary({ profile: p, from: -20, boundary: gap, sigma: 1.2, guess: 0.5, reach: 3 })
+      expect(Math.abs(fit as number)).toBeLessThan(0.1)
+    }
   })
 
   it('keeps one step where the card’s bottom edge hides just behind the steel and the step is softer than expected', () => {
