@@ -109,8 +109,7 @@ describe('heel end, rocker start and station', () => {
   it('does not take a stretch traced twice (the trace folding back along the rocker) for the heel end', () => {
     // The points run on to x ≈ 101.6, fall back to x ≈ 100 and run on again over the same stretch: for 1.6 mm the
     // direction is ~180° from L, yet the edge does not rise.
-    const at = (p: Vec2) => p[0] >= 100
-    const i0 = edge.findIndex(at)
+    const i0 = edge.findIndex((p) => p[0] >= 100)
     const i1 = edge.findIndex((p) => p[0] >= 101.6)
     const folded = [...edge.slice(0, i1), ...edge.slice(i0, i1).reverse(), ...edge.slice(i0)]
     const e = findHeelEnd(folded, directionAngles(folded), folded.findIndex((p) => p[0] >= 40))!
