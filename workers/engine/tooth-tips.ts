@@ -113,7 +113,7 @@ export function refineToothTips(strip: Strip, edge: Pt[], zoneMm: number, blurPx
     if (before === null || after === null) continue
     // Start from where the faces meet: the traced point may lie up a face when the trace lost the tip.
     const meet = intersect(before, after)
-    const start = meet && Math.hypot(meet[0] - edge[i][0], meet[1] - edge[i][1]) <= MAX_START_SHIFT_MM ? meet : edge[i]
+    const start = meet && dist(meet, edge[i]) <= MAX_START_SHIFT_MM ? meet : edge[i]
     const tip = cardToStrip(strip, start)
     // The card's bottom edge: where the depth below it of the ray through the tip's pixel falls to zero.
     const depth = sample({ data: strip.tableDepth, width: strip.img.width, height: strip.img.height }, tip[0], tip[1])
@@ -122,7 +122,7 @@ export function refineToothTips(strip: Strip, edge: Pt[], zoneMm: number, blurPx
     const fit = fitTipModel({ img: strip.img, tip, slopes, sigma: Math.max(0.5, blurPx), cardEdgeV: tip[1] - depth, radius })
     if (!fit || fit.contrast < MIN_CONTRAST) continue
     const fitted = stripToCard(strip, fit.tip[0], fit.tip[1])
-    if (Math.hypot(fit.tip[0] - tip[0], fit.tip[1] - tip[1]) > moveAllowanceMm(edge, i, start, fitted) * r) continue
+    if (dist(fit.tip, tip) > moveAllowanceMm(edge, i, start, fitted) * r) continue
     if (turnDeg(fit.slopes[0], slopes[0]) > MAX_TURN_DEG || turnDeg(fit.slopes[1], slopes[1]) > MAX_TURN_DEG) continue
     out[i] = fitted
   }
