@@ -21,7 +21,7 @@ export async function createContext(config: AppConfig, processName: string): Pro
   const logger = createLogger(config.LOG_LEVEL, processName)
   const db = createDataSource(config.DATABASE_URL)
   await db.initialize()
-  const queue = new QueueService(config.DATABASE_URL)
+  const queue = new QueueService(config.DATABASE_URL, { onError: (err) => logger.error({ err }, 'job queue error') })
   await queue.start()
   return {
     config,
@@ -35,6 +35,6 @@ export async function createContext(config: AppConfig, processName: string): Pro
 
 export async function closeContext(ctx: AppContext): Promise<void> {
   await ctx.queue.stop()
-  ctx.mail.close()
+  await ctx.mail.close()
   await ctx.db.destroy()
 }

@@ -16,13 +16,20 @@ export const queuePolicy = {
 export class QueueService {
   readonly boss: PgBoss
 
-  constructor(databaseUrl: string, options: { maintenanceIntervalSeconds?: number } = {}) {
+  constructor(
+    databaseUrl: string,
+    options: { maintenanceIntervalSeconds?: number; onError?: (err: unknown) => void } = {},
+  ) {
     this.boss = new PgBoss({
       connectionString: databaseUrl,
       max: 4,
       maintenanceIntervalSeconds: options.maintenanceIntervalSeconds ?? 30,
       monitorStateIntervalSeconds: 60,
     })
+    // pg-boss re-emits its pool's errors (a dropped connection, a database restarting) as 'error'; an emitter with no
+    // listener turns that into an uncaught exception that would take the whole process down.
+    const onError = options.onError ?? ((err: unknown) => console.error('job queue error', err))
+    this.boss.on('error', onError)
   }
 
   /** Installs or migrates the queue schema and creates every named queue (pg-boss 10 requires it before use). */
@@ -40,7 +47,8 @@ export class QueueService {
     if (!(await this.boss.isInstalled())) throw new Error('queue schema is not installed')
   }
 
+  /** Lets running jobs finish (up to 10 s), then closes the queue's connections before resolving. */
   async stop(): Promise<void> {
-    await this.boss.stop({ graceful: true, timeout: 10_000 })
+    await this.boss.stop({ graceful: true, wait: true, timeout: 10_000 })
   }
 }

@@ -12,6 +12,8 @@ export interface OutgoingMail {
 /** Sends mail through the configured SMTP server: the local fake in development, a relay in production. */
 export class MailService {
   private readonly transport: Transporter
+  /** Sends still on the wire, so closing waits for them instead of cutting a message off mid-conversation. */
+  private readonly inFlight = new Set<Promise<unknown>>()
 
   constructor(private readonly config: Pick<AppConfig, 'SMTP_URL' | 'MAIL_FROM'>) {
     const url = new URL(config.SMTP_URL)
@@ -27,14 +29,20 @@ export class MailService {
   }
 
   async send(mail: OutgoingMail): Promise<void> {
-    await this.transport.sendMail({ from: this.config.MAIL_FROM, ...mail })
+    const sending = this.transport.sendMail({ from: this.config.MAIL_FROM, ...mail })
+    const settled = sending.catch(() => undefined)
+    this.inFlight.add(settled)
+    void settled.finally(() => this.inFlight.delete(settled))
+    await sending
   }
 
   async ping(): Promise<void> {
     await this.transport.verify()
   }
 
-  close(): void {
+  /** Waits for messages being sent (each bounded by the transport's own timeouts), then closes the transport. */
+  async close(): Promise<void> {
+    await Promise.all([...this.inFlight])
     this.transport.close()
   }
 }
