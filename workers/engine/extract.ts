@@ -41,14 +41,15 @@ const BLURRED_CARD_SQUARES = 8
 
 /**
  * Runs `find`, but says TOO_BLURRY rather than "not found" when the whole photo is out of focus and something is
- * there to be found (`present`): a photo without a card is as smooth as a defocused one.
+ * there to be found (`present`): a photo without a card is as smooth as a defocused one. A defocused card can also lose
+ * one end's markers, which would otherwise read as a blade cut off by the frame.
  */
 function orExplainBlur<T>(cv: Cv, full: Mat, present: boolean, find: () => T): T {
   try {
     return find()
   } catch (err) {
-    const notFound = present && err instanceof EngineRefusal && (err.code === 'CARD_NOT_FOUND' || err.code === 'BLADE_NOT_FOUND')
-    if (notFound && photoSharpness(cv, full) < MIN_PHOTO_SHARPNESS) throw new EngineRefusal('TOO_BLURRY', 'photo out of focus')
+    const maybeBlur = present && err instanceof EngineRefusal && (err.code === 'CARD_NOT_FOUND' || err.code === 'BLADE_NOT_FOUND' || err.code === 'BLADE_CUT_OFF')
+    if (maybeBlur && photoSharpness(cv, full) < MIN_PHOTO_SHARPNESS) throw new EngineRefusal('TOO_BLURRY', 'photo out of focus')
     throw err
   }
 }

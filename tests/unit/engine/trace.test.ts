@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import { getCv } from '../../../workers/engine/opencv'
 import { segmentBlade } from '../../../workers/engine/segment'
-import { lowerPath, refineAlongNormals, sharpOnly, smoothResample, type EdgeSample } from '../../../workers/engine/trace'
+import { edgeBlur, lowerPath, refineAlongNormals, sharpOnly, smoothResample, type EdgeSample } from '../../../workers/engine/trace'
 import type { Strip } from '../../../workers/engine/rectify'
 
 const W = 1600
@@ -77,6 +77,34 @@ describe('soft samples', () => {
       withNaN.splice(at, 0, { p: [9, 0], strength: 50, sigma: NaN })
       const kept = sharpOnly(withNaN)
       expect(kept.map((s) => s.sigma)).toEqual([1.0, 1.1, 1.15, 1.2, 1.3])
+    }
+  })
+})
+
+describe('edge blur from a profile across the edge', () => {
+  // A straight edge blurred by a Gaussian of sigma σ has the profile S + h·Φ((s − e)/σ), whose steepest slope is
+  // h / (σ√(2π)) (any probability text: the normal density's peak is 1/(σ√(2π))); the blur is read back from the
+  // slope and the step. A wide blur must read as wide: read 3 px out, a 6 px blur would show 40 % of its step.
+  function blurredStep(sigma: number): { profile: Float64Array; peakAt: number; peak: number } {
+    const n = 161
+    const profile = new Float64Array(n)
+    for (let k = 0; k < n; k++) profile[k] = 40 + 150 * 0.5 * (1 + erf((k - 80.3) / (sigma * Math.SQRT2)))
+    let peakAt = 1
+    for (let k = 1; k < n - 1; k++) if (profile[k + 1] - profile[k - 1] > profile[peakAt + 1] - profile[peakAt - 1]) peakAt = k
+    return { profile, peakAt, peak: (profile[peakAt + 1] - profile[peakAt - 1]) / 2 }
+  }
+  for (const sigma of [3, 6, 10]) {
+    it(`reads back a blur of ${sigma} px within 6 %`, () => {
+      const { profile, peakAt, peak } = blurredStep(sigma)
+      expect(Math.abs(edgeBlur(profile, peakAt, peak) / sigma - 1)).toBeLessThan(0.06)
+    })
+  }
+  it('reads a sharp edge as sharp: a 2 px central difference flattens the slope, so it errs a little wide', () => {
+    for (const sigma of [0.8, 1.5]) {
+      const { profile, peakAt, peak } = blurredStep(sigma)
+      const read = edgeBlur(profile, peakAt, peak)
+      expect(read).toBeGreaterThanOrEqual(sigma)
+      expect(read).toBeLessThan(1.35 * sigma)
     }
   })
 })
