@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { fitEdgeWithBoundary, normalCdf } from '../../../workers/engine/step-model'
+import { fitEdgeWithBoundary, normalCdf, normalCdfExact } from '../../../workers/engine/step-model'
 
 /** A profile across the edge: steel S up to e, card C up to b, table T beyond, blurred by a Gaussian of sigma. */
 function profile(e: number, b: number, sigma: number, levels: { S: number; C: number; T: number }, from: number, n: number, texture = 0.8): Float64Array {
@@ -18,6 +18,14 @@ describe('edge fit with the card\u2019s bottom edge close behind', () => {
     expect(normalCdf(0)).toBeCloseTo(0.5, 7)
     expect(normalCdf(1)).toBeCloseTo(0.841345, 5)
     expect(normalCdf(-1.96)).toBeCloseTo(0.024998, 5)
+  })
+
+  it('tabulates the CDF within 3e-7 of the closed form (A&S 7.1.26) everywhere, tails included', () => {
+    let worst = 0
+    for (let x = -9; x <= 9; x += 0.000731) worst = Math.max(worst, Math.abs(normalCdf(x) - normalCdfExact(x)))
+    expect(worst).toBeLessThan(3e-7)
+    expect(normalCdf(Number.NEGATIVE_INFINITY)).toBe(0)
+    expect(normalCdf(Number.POSITIVE_INFINITY)).toBe(1)
   })
 
   for (const gap of [0.5, 1.5, 3]) {
