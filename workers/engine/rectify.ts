@@ -90,19 +90,31 @@ export function rectify(cv: Cv, photo: GreyImage, hPlane: Mat3, d: Distortion, s
         ns[j] = shadeAt(q[0], q[1])
         nd[j] = (apply(toCard, und)[1] - req.tableY) * req.pxPerMm
       }
-      for (let u = 0; u < w; u++) {
-        const j = Math.min(Math.floor(u / MAP_STEP), nodes - 2)
+      // Segment by segment between nodes (the last takes the row's remainder), so no pixel searches for its nodes.
+      for (let j = 0; j < nodes - 1; j++) {
         const u0 = j * MAP_STEP
-        const t = (u - u0) / (Math.min(u0 + MAP_STEP, w - 1) - u0 || 1)
-        const i = v * w + u
-        const qx = nx[j] + t * (nx[j + 1] - nx[j])
-        const qy = ny[j] + t * (ny[j + 1] - ny[j])
-        mx[i] = qx
-        my[i] = qy
-        shade[i] = ns[j] + t * (ns[j + 1] - ns[j])
-        tableDepth[i] = nd[j] + t * (nd[j + 1] - nd[j])
-        const inPhoto = qx >= 1 && qy >= 1 && qx <= photo.width - 2 && qy <= photo.height - 2
-        inside[i] = !inPhoto ? 0 : tableDepth[i] > 0 ? BEHIND_TABLE : BEHIND_CARD
+        const uEnd = j === nodes - 2 ? w : u0 + MAP_STEP
+        const span = Math.min(u0 + MAP_STEP, w - 1) - u0 || 1
+        const x0 = nx[j]
+        const dx = nx[j + 1] - x0
+        const y0 = ny[j]
+        const dy = ny[j + 1] - y0
+        const s0 = ns[j]
+        const ds = ns[j + 1] - s0
+        const d0 = nd[j]
+        const dd = nd[j + 1] - d0
+        for (let u = u0; u < uEnd; u++) {
+          const t = (u - u0) / span
+          const i = v * w + u
+          const qx = x0 + t * dx
+          const qy = y0 + t * dy
+          mx[i] = qx
+          my[i] = qy
+          shade[i] = s0 + t * ds
+          tableDepth[i] = d0 + t * dd
+          const inPhoto = qx >= 1 && qy >= 1 && qx <= photo.width - 2 && qy <= photo.height - 2
+          inside[i] = !inPhoto ? 0 : tableDepth[i] > 0 ? BEHIND_TABLE : BEHIND_CARD
+        }
       }
     }
     const dst = track(new cv.Mat())
