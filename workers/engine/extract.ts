@@ -8,7 +8,7 @@ import { fitCardShade } from './shade'
 import { distort } from './camera'
 import { fitHomography } from './homography'
 import { apply, type Mat3, type Pt } from './projective'
-import { EngineRefusal } from './errors'
+import { EngineRefusal, type RefusalCode } from './errors'
 import { findTopEdge } from './top-edge'
 import type { TopEdge } from '../../shared/schemas/analysis'
 
@@ -47,11 +47,14 @@ const BLURRED_CARD_SQUARES = 8
  * there to be found (`present`): a photo without a card is as smooth as a defocused one. A defocused card can also lose
  * one end's markers, which would otherwise read as a blade cut off by the frame.
  */
+/** Refusals a defocused photo can produce in place of TOO_BLURRY. */
+const BLUR_CAN_CAUSE = new Set<RefusalCode>(['CARD_NOT_FOUND', 'BLADE_NOT_FOUND', 'BLADE_CUT_OFF'])
+
 function orExplainBlur<T>(cv: Cv, full: Mat, present: boolean, find: () => T): T {
   try {
     return find()
   } catch (err) {
-    const maybeBlur = present && err instanceof EngineRefusal && (err.code === 'CARD_NOT_FOUND' || err.code === 'BLADE_NOT_FOUND' || err.code === 'BLADE_CUT_OFF')
+    const maybeBlur = present && err instanceof EngineRefusal && BLUR_CAN_CAUSE.has(err.code)
     if (maybeBlur && photoSharpness(cv, full) < MIN_PHOTO_SHARPNESS) throw new EngineRefusal('TOO_BLURRY', 'photo out of focus')
     throw err
   }

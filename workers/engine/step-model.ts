@@ -41,8 +41,9 @@ function det3(a: number, b: number, c: number, d: number, f: number, g: number):
 }
 
 /**
- * The residual below for the columns 1 and Φ((s − e)/σ) alone: the plain steel-to-table step, seven calls in eight.
- * Written out apart from it so this hot loop does not carry the card strip's four extra sums.
+ * Least-squares residual of profile[k] (at positions from + k, k in [k0, k1]) on the columns 1 and Φ((s − e)/σ): the
+ * plain steel-to-table step, seven calls in eight. Written apart from `stripResidual` so this hot loop does not carry
+ * the card strip's four extra sums.
  */
 function plainResidual(profile: ArrayLike<number>, from: number, k0: number, k1: number, e: number, sigma: number): number {
   let n = 0
@@ -69,12 +70,10 @@ function plainResidual(profile: ArrayLike<number>, from: number, k0: number, k1:
 }
 
 /**
- * Least-squares residual of profile[k] (at positions from + k, k in [k0, k1]) on the columns 1, Φ((s − e)/σ) and,
- * when given, behind[k] (the card-to-table step): the normal equations are 2 × 2 or 3 × 3, solved in closed form
- * (Cramer's rule) since the scan calls this some sixty times per edge point.
+ * The same residual with a third column, behind[k] (the card-to-table step): the normal equations are 2 × 2 there and
+ * 3 × 3 here, solved in closed form (Cramer's rule) since the scan calls these some sixty times per edge point.
  */
-function residual(profile: ArrayLike<number>, from: number, k0: number, k1: number, e: number, sigma: number, behind: Float64Array | null): number {
-  if (!behind) return plainResidual(profile, from, k0, k1, e, sigma)
+function stripResidual(profile: ArrayLike<number>, from: number, k0: number, k1: number, e: number, sigma: number, behind: Float64Array): number {
   let n = 0
   let se = 0
   let sb = 0
@@ -167,10 +166,10 @@ export function fitEdgeWithBoundary(r: StepFitRequest): number | null {
   for (let e = guess - reach; e <= guess + reach + 1e-9; e += step) {
     positions.push(e)
     let cost = Infinity
-    for (const f of PLAIN_STEP_BLURS) cost = Math.min(cost, residual(profile, from, k0, k1, e, f * sigma, null))
+    for (const f of PLAIN_STEP_BLURS) cost = Math.min(cost, plainResidual(profile, from, k0, k1, e, f * sigma))
     plain.push(cost)
     // While the steel's edge lies in front of the card's bottom edge, a strip of card shows between them.
-    strip.push(boundary !== null && e < boundary ? residual(profile, from, k0, k1, e, sigma, behind) : Infinity)
+    strip.push(boundary !== null && e < boundary ? stripResidual(profile, from, k0, k1, e, sigma, behind) : Infinity)
   }
   const one = bestPosition(plain, positions, step)
   const two = bestPosition(strip, positions, step)
