@@ -45,7 +45,7 @@ function det3(a: number, b: number, c: number, d: number, f: number, g: number):
  * plain steel-to-table step, seven calls in eight. Written apart from `stripResidual` so this hot loop does not carry
  * the card strip's four extra sums.
  */
-function plainResidual(profile: ArrayLike<number>, from: number, k0: number, k1: number, e: number, sigma: number): number {
+function plainResidual(profile: ArrayLike<number>, k0: number, k1: number, step: SteppedCdf, i: number): number {
   let n = 0
   let se = 0
   let see = 0
@@ -53,7 +53,7 @@ function plainResidual(profile: ArrayLike<number>, from: number, k0: number, k1:
   let sey = 0
   let syy = 0
   for (let k = k0; k <= k1; k++) {
-    const u = normalCdf((from + k - e) / sigma)
+    const u = step.at(k, i)
     const y = profile[k]
     n++
     se += u
@@ -73,7 +73,7 @@ function plainResidual(profile: ArrayLike<number>, from: number, k0: number, k1:
  * The same residual with a third column, behind[k] (the card-to-table step): the normal equations are 2 × 2 there and
  * 3 × 3 here, solved in closed form (Cramer's rule) since the scan calls these some sixty times per edge point.
  */
-function stripResidual(profile: ArrayLike<number>, from: number, k0: number, k1: number, e: number, sigma: number, behind: Float64Array): number {
+function stripResidual(profile: ArrayLike<number>, k0: number, k1: number, step: SteppedCdf, i: number, behind: Float64Array): number {
   let n = 0
   let se = 0
   let sb = 0
@@ -85,7 +85,7 @@ function stripResidual(profile: ArrayLike<number>, from: number, k0: number, k1:
   let sby = 0
   let syy = 0
   for (let k = k0; k <= k1; k++) {
-    const u = normalCdf((from + k - e) / sigma)
+    const u = step.at(k, i)
     const v = behind[k]
     const y = profile[k]
     n++
@@ -137,6 +137,30 @@ const PLAIN_STEP_BLURS = [0.8, 0.9, 1, 1.1, 1.25, 1.4, 1.6]
 const STRIP_EVIDENCE = { narrow: 0.5, wide: 0.8 }
 const NARROW_STRIP_PX = 1.5
 
+/**
+ * Φ((from + k − e_i)/σ) for the scan's edge positions e_i = first + i·h and the profile's pixels k, tabulated once: with
+ * h a tenth of a pixel, pixel k at position i falls on the same grid point as pixel k + 1 at position i + 10, so the
+ * 61 positions × 7 blurs × 20-odd pixels of a scan need only a few hundred CDF values per blur.
+ */
+class SteppedCdf {
+  private readonly values: Float64Array
+  private readonly last: number
+
+  constructor(from: number, private readonly k0: number, k1: number, first: number, count: number, sigma: number) {
+    this.last = count - 1
+    this.values = new Float64Array((k1 - k0) * SCAN_PER_PX + count)
+    const x0 = from + k0 - first
+    for (let j = 0; j < this.values.length; j++) this.values[j] = normalCdf((x0 + (j - this.last) / SCAN_PER_PX) / sigma)
+  }
+
+  at(k: number, i: number): number {
+    return this.values[(k - this.k0) * SCAN_PER_PX - i + this.last]
+  }
+}
+
+/** Edge positions scanned per pixel. */
+const SCAN_PER_PX = 10
+
 /** Index of the smallest cost, refined by a parabola through it and its neighbours; null if none is finite. */
 function bestPosition(costs: number[], positions: number[], step: number): { at: number; cost: number } | null {
   let best = 0
@@ -156,20 +180,25 @@ export function fitEdgeWithBoundary(r: StepFitRequest): number | null {
   const k0 = Math.max(0, Math.floor(guess - reach - span - from))
   const k1 = Math.min(profile.length - 1, Math.ceil(far + span - from))
   if (k1 - k0 < 6) return null
-  const step = 0.1
+  const step = 1 / SCAN_PER_PX
+  const count = Math.round(2 * reach * SCAN_PER_PX) + 1
+  const first = guess - reach
+  const blurs = PLAIN_STEP_BLURS.map((f) => new SteppedCdf(from, k0, k1, first, count, f * sigma))
+  const own = blurs[PLAIN_STEP_BLURS.indexOf(1)]
   const plain: number[] = []
   const strip: number[] = []
   const positions: number[] = []
   // The card-to-table step does not move with e: its blurred profile is computed once.
   const behind = new Float64Array(profile.length)
   if (boundary !== null) for (let k = k0; k <= k1; k++) behind[k] = normalCdf((from + k - boundary) / sigma)
-  for (let e = guess - reach; e <= guess + reach + 1e-9; e += step) {
+  for (let i = 0; i < count; i++) {
+    const e = first + i * step
     positions.push(e)
     let cost = Infinity
-    for (const f of PLAIN_STEP_BLURS) cost = Math.min(cost, plainResidual(profile, from, k0, k1, e, f * sigma))
+    for (const b of blurs) cost = Math.min(cost, plainResidual(profile, k0, k1, b, i))
     plain.push(cost)
     // While the steel's edge lies in front of the card's bottom edge, a strip of card shows between them.
-    strip.push(boundary !== null && e < boundary ? stripResidual(profile, from, k0, k1, e, sigma, behind) : Infinity)
+    strip.push(boundary !== null && e < boundary ? stripResidual(profile, k0, k1, own, i, behind) : Infinity)
   }
   const one = bestPosition(plain, positions, step)
   const two = bestPosition(strip, positions, step)
