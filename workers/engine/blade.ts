@@ -116,6 +116,12 @@ const RUNNER_BAND_MM = 30
 /** Toe-pick teeth lie within this arc length of the edge's toe end, mm; their corners are restored there. */
 const TOE_PICK_ZONE_MM = 45
 
+/**
+ * Height above the table line below which the outline is taken for the toe picks' faces and the rocker, never for a
+ * boot or a plate (those sit on top of a runner 20 mm tall or more), mm.
+ */
+const TOE_PICK_HEIGHT_MM = 20
+
 /** How far the edge search reaches into the steel and out of it, mm: past the widest shadow the runner casts. */
 const SEARCH_INSIDE_MM = 6
 const SEARCH_OUTSIDE_MM = 2.5
@@ -123,7 +129,7 @@ const SEARCH_OUTSIDE_MM = 2.5
 function traceSamples(strip: Strip, sil: Silhouette, tableV: number): EdgeSample[] {
   const r = strip.pxPerMm
   const ratio = sil.steelRatio
-  const path = trimExcursions(lowerPath(sil.outline), r).filter(([, v]) => v > 1.5 * r)
+  const path = trimExcursions(lowerPath(sil.outline), r, tableV - TOE_PICK_HEIGHT_MM * r).filter(([, v]) => v > 1.5 * r)
   if (path.length < 20) throw new EngineRefusal('BLADE_NOT_FOUND', 'no lower outline')
   checkCutOff(path, strip, tableV)
   const coarse = smoothResample(path, Math.max(2, Math.round(0.6 * r)), 0.25 * r)

@@ -30,14 +30,15 @@ export function lowerPath(outline: Pt[]): Pt[] {
 /**
  * Trims backward excursions at either end of a lower path: along the blade's bottom, x never falls back by more than
  * `tolPx`, so where the outline first runs along a boot or a plate and then returns, the part before (or after) is
- * not the runner's edge.
+ * not the runner's edge. Points below row `lowV` never start a trim: down there the outline is on the toe picks,
+ * whose raked teeth make it step back by a millimetre or more (a generated photo lost its whole toe that way).
  */
-export function trimExcursions(path: Pt[], tolPx: number): Pt[] {
+export function trimExcursions(path: Pt[], tolPx: number, lowV = Infinity): Pt[] {
   const n = path.length
   let start = 0
   let suffixMin = Infinity
   for (let k = n - 1; k >= 0; k--) {
-    if (k < n / 2 && path[k][0] > suffixMin + tolPx) {
+    if (k < n / 2 && path[k][1] < lowV && path[k][0] > suffixMin + tolPx) {
       start = k + 1
       break
     }
@@ -46,7 +47,7 @@ export function trimExcursions(path: Pt[], tolPx: number): Pt[] {
   let end = n - 1
   let prefixMax = -Infinity
   for (let k = 0; k < n; k++) {
-    if (k > n / 2 && path[k][0] < prefixMax - tolPx) {
+    if (k > n / 2 && path[k][1] < lowV && path[k][0] < prefixMax - tolPx) {
       end = k - 1
       break
     }

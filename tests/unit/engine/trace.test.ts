@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import { getCv } from '../../../workers/engine/opencv'
 import { segmentBlade } from '../../../workers/engine/segment'
-import { edgeBlur, lowerPath, refineAlongNormals, sharpOnly, smoothResample, type EdgeSample } from '../../../workers/engine/trace'
+import { edgeBlur, lowerPath, refineAlongNormals, sharpOnly, smoothResample, trimExcursions, type EdgeSample } from '../../../workers/engine/trace'
 import type { Strip } from '../../../workers/engine/rectify'
 
 const W = 1600
@@ -106,5 +106,28 @@ describe('edge blur from a profile across the edge', () => {
       expect(read).toBeGreaterThanOrEqual(sigma)
       expect(read).toBeLessThan(1.35 * sigma)
     }
+  })
+})
+
+describe('trimExcursions', () => {
+  type P = [number, number]
+  // A lower path in strip px (v down, table at v = 300): a boot's sole running right high up, its return down the
+  // blade's front, then toe-pick teeth raked forward (each tip 15 px ahead of the notch before it) and the rocker.
+  const boot: P[] = Array.from({ length: 40 }, (_, i) => [100 + 4 * i, 60])
+  const front: P[] = Array.from({ length: 20 }, (_, i) => [260 - 4 * i, 60 + 6 * i])
+  const teeth: P[] = [[180, 200], [200, 230], [185, 240], [205, 270], [190, 280], [215, 300]]
+  const rocker: P[] = Array.from({ length: 120 }, (_, i) => [220 + 10 * i, 300])
+  const path = [...boot, ...front, ...teeth, ...rocker]
+
+  it('cuts the boot off where the outline steps back high above the table', () => {
+    const kept = trimExcursions(path, 10, 300 - 20 * 10)
+    expect(kept[0][1]).toBeGreaterThan(60)
+    expect(kept.some(([u, v]) => u === 190 && v === 280)).toBe(true)
+  })
+
+  it('keeps raked toe-pick teeth near the table, which a trim on every step back would cut away', () => {
+    expect(trimExcursions(path, 10)).not.toContainEqual([185, 240])
+    const kept = trimExcursions(path, 10, 300 - 20 * 10)
+    for (const tooth of teeth) expect(kept).toContainEqual(tooth)
   })
 })
