@@ -12,8 +12,14 @@ import type { SeedStep } from './index'
  * Pairs of skates for the demo club's skaters, a few recorded sharpenings, and one photo of a generated (invented)
  * blade queued for the worker, so the first `npm start` shows a real measurement made by the engine.
  */
-/** The generated scene behind the demo photos: one the current engine measures, so the demo opens on a result. */
-export const DEMO_SCENE_SEED = 11
+/**
+ * The generated scene behind the demo photos. The wear history photographs it ten times (two blades, five visits, the
+ * touch point moved back each time), so it must be a scene the engine reads well on every one of them, or the demo's
+ * history shows the engine's noise instead of the wear: seed 11 refused two of the ten and read the touch point up to
+ * 22 mm off; seed 47 measures all ten within 1.0 mm (touch point) and 0.3 mm (heel lift) at engine-1.5.4. Scanning
+ * seeds 20–49 the same way, 25 of 30 measured all ten and 7 of those kept within 2.5 mm.
+ */
+export const DEMO_SCENE_SEED = 47
 export function demoScene(toe?: 'left' | 'right') {
   return sampleScene(DEMO_SCENE_SEED, { resolution: '3mp', discipline: 'freestyle', ...(toe ? { toe } : {}) })
 }
