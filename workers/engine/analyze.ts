@@ -7,7 +7,7 @@ import { EngineRefusal } from './errors'
 import { toRows } from './projective'
 
 /** Version of the measurement algorithm; stored with every analysis so results can be recomputed or compared. */
-export const ALGORITHM_VERSION = 'engine-1.5.4'
+export const ALGORITHM_VERSION = 'engine-1.6.0'
 
 export type { Discipline }
 

@@ -206,3 +206,114 @@ export function fitEdgeWithBoundary(r: StepFitRequest): number | null {
   if (two && (!one || two.cost < evidence * one.cost)) return two.at
   return one ? one.at : null
 }
+
+/** Least-squares residual of y on two columns a and b over k0..k1 (each column given per k); Infinity if degenerate. */
+function twoLevelResidual(k0: number, k1: number, a: (k: number) => number, b: (k: number) => number, y: (k: number) => number): number {
+  let aa = 0
+  let ab = 0
+  let bb = 0
+  let ay = 0
+  let by = 0
+  let yy = 0
+  for (let k = k0; k <= k1; k++) {
+    const u = a(k)
+    const v = b(k)
+    const w = y(k)
+    aa += u * u
+    ab += u * v
+    bb += v * v
+    ay += u * w
+    by += v * w
+    yy += w * w
+  }
+  const det = aa * bb - ab * ab
+  if (!(det > 1e-9 * Math.max(1, aa * bb))) return Infinity
+  return yy - (ay * (ay * bb - ab * by) + by * (aa * by - ab * ay)) / det
+}
+
+export interface KnownCardRequest {
+  profile: ArrayLike<number>
+  from: number
+  /** Where the card's bottom edge lies along the normal, px. */
+  boundary: number
+  sigma: number
+  /** The gradient peak's position, and how far into the steel and out of it the edge is searched, px. */
+  guess: number
+  reachIn: number
+  reachOut: number
+  /** Brightness of the strip of card right outside the steel's edge, grey levels. */
+  cardLevel: number
+}
+
+/**
+ * The edge position when the strip of card between the steel and the card's bottom edge has a known level C: the
+ * profile minus C·(Φ((s − e)/σ) − Φ((s − b)/σ)) is then S·(1 − Φ((s − e)/σ)) + T·Φ((s − b)/σ), two free levels.
+ * Where the strip is narrow its level and its width trade against each other (the profile sees only their product),
+ * which is what lets the free three-level model wander; with C known the width is pinned. Past the card's edge
+ * (e ≥ b) the model is the plain steel-to-table step. Null when no position explains the profile.
+ */
+export function fitEdgeWithKnownCard(r: KnownCardRequest): number | null {
+  const { profile, from, boundary: b, sigma, guess, cardLevel } = r
+  const span = Math.max(4 * sigma, 4)
+  const k0 = Math.max(0, Math.floor(guess - r.reachIn - span - from))
+  const k1 = Math.min(profile.length - 1, Math.ceil(Math.max(b, guess + r.reachOut) + span - from))
+  if (k1 - k0 < 6) return null
+  const count = Math.round((r.reachIn + r.reachOut) * SCAN_PER_PX) + 1
+  const first = guess - r.reachIn
+  const steps = new SteppedCdf(from, k0, k1, first, count, sigma)
+  const behind = new Float64Array(profile.length)
+  for (let k = k0; k <= k1; k++) behind[k] = normalCdf((from + k - b) / sigma)
+  const costs: number[] = []
+  const positions: number[] = []
+  for (let i = 0; i < count; i++) {
+    const e = first + i / SCAN_PER_PX
+    positions.push(e)
+    const pe = (k: number) => steps.at(k, i)
+    costs.push(e < b
+      ? twoLevelResidual(k0, k1, (k) => 1 - pe(k), (k) => behind[k], (k) => profile[k] - cardLevel * (pe(k) - behind[k]))
+      : twoLevelResidual(k0, k1, (k) => 1 - pe(k), pe, (k) => profile[k]))
+  }
+  const best = bestPosition(costs, positions, 1 / SCAN_PER_PX)
+  return best ? best.at : null
+}
+
+/**
+ * Brightness just outside a steel edge: the outer level of the plain blurred step that best fits the profile from
+ * 4 blur widths inside the edge to 2 px outside it (edge searched within ±1.5 px of the guess). Read on wide strips
+ * of card, it is the level of the card right beside the steel, shadow included. Null when nothing fits.
+ */
+export function levelOutsideEdge(profile: ArrayLike<number>, from: number, guess: number, sigma: number): number | null {
+  const k0 = Math.max(0, Math.floor(guess - 4 * sigma - 3 - from))
+  const k1 = Math.min(profile.length - 1, Math.round(guess + 2 - from))
+  if (k1 - k0 < 5) return null
+  let best = Infinity
+  let level: number | null = null
+  for (let e = guess - 1.5; e <= guess + 1.5 + 1e-9; e += 0.1) {
+    let n = 0
+    let se = 0
+    let see = 0
+    let sy = 0
+    let sey = 0
+    let syy = 0
+    for (let k = k0; k <= k1; k++) {
+      const u = normalCdf((from + k - e) / sigma)
+      const y = profile[k]
+      n++
+      se += u
+      see += u * u
+      sy += y
+      sey += u * y
+      syy += y * y
+    }
+    const det = n * see - se * se
+    if (!(det > 1e-9 * Math.max(1, n * see))) continue
+    const steel = (sy * see - se * sey) / det
+    const rise = (n * sey - se * sy) / det
+    const cost = syy - (steel * sy + rise * sey)
+    if (cost < best) {
+      best = cost
+      level = steel + rise
+    }
+  }
+  return level
+}

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { fitEdgeWithBoundary, normalCdf, normalCdfExact } from '../../../workers/engine/step-model'
+import { fitEdgeWithBoundary, fitEdgeWithKnownCard, levelOutsideEdge, normalCdf, normalCdfExact } from '../../../workers/engine/step-model'
 
 /** A profile across the edge: steel S up to e, card C up to b, table T beyond, blurred by a Gaussian of sigma. */
 function profile(e: number, b: number, sigma: number, levels: { S: number; C: number; T: number }, from: number, n: number, texture = 0.8): Float64Array {
@@ -66,5 +66,34 @@ describe('edge fit with the card\u2019s bottom edge close behind', () => {
       const fit = fitEdgeWithBoundary({ profile: p, from: -20, boundary: 0, sigma: 1.2, guess: 0.2, reach: 3 })
       expect(Math.abs((fit as number) - 0.2)).toBeLessThan(0.1)
     }
+  })
+})
+
+describe('edge fit with the strip of card at a known level', () => {
+  const sigma = 1.2
+  const from = -24
+  // Dark steel, card darkened by the runner's shadow to 150 right beside it, a light table: a narrow strip of card.
+  const levels = { S: 90, C: 150, T: 200 }
+  for (const gap of [0.8, 1.5, 3]) {
+    it(`places a steel edge ${gap} px in front of the card's bottom edge to a tenth of a pixel from a guess 2.5 px out`, () => {
+      const e = 0.4
+      const p = profile(e, e + gap, sigma, levels, from, 44)
+      const fit = fitEdgeWithKnownCard({ profile: p, from, boundary: e + gap, sigma, guess: e + 2.5, reachIn: 6, reachOut: 3, cardLevel: levels.C })
+      expect(fit).not.toBeNull()
+      expect(Math.abs((fit as number) - e)).toBeLessThan(0.1)
+    })
+  }
+
+  it('reads steel straight against the table as a plain step once the edge lies past the card', () => {
+    const [e, b] = [1.2, -0.5]
+    const p = profile(e, b, sigma, levels, from, 44)
+    const fit = fitEdgeWithKnownCard({ profile: p, from, boundary: b, sigma, guess: e - 1, reachIn: 6, reachOut: 3, cardLevel: levels.C })
+    expect(Math.abs((fit as number) - e)).toBeLessThan(0.1)
+  })
+
+  it('reads the card\u2019s level right outside a steel edge within a grey level', () => {
+    const p = profile(0.3, 30, sigma, levels, from, 44, 0)
+    const level = levelOutsideEdge(p, from, 1.0, sigma)
+    expect(Math.abs((level as number) - levels.C)).toBeLessThan(1)
   })
 })
