@@ -207,8 +207,8 @@ export function fitEdgeWithBoundary(r: StepFitRequest): number | null {
   return one ? one.at : null
 }
 
-/** Least-squares residual of y on two columns a and b over k0..k1 (each column given per k); Infinity if degenerate. */
-function twoLevelResidual(k0: number, k1: number, a: (k: number) => number, b: (k: number) => number, y: (k: number) => number): number {
+/** Least-squares fit of y on two columns a and b over k0..k1 (each given per k): residual and coefficients. */
+function twoLevelFit(k0: number, k1: number, a: (k: number) => number, b: (k: number) => number, y: (k: number) => number): { cost: number; xa: number; xb: number } {
   let aa = 0
   let ab = 0
   let bb = 0
@@ -227,8 +227,10 @@ function twoLevelResidual(k0: number, k1: number, a: (k: number) => number, b: (
     yy += w * w
   }
   const det = aa * bb - ab * ab
-  if (!(det > 1e-9 * Math.max(1, aa * bb))) return Infinity
-  return yy - (ay * (ay * bb - ab * by) + by * (aa * by - ab * ay)) / det
+  if (!(det > 1e-9 * Math.max(1, aa * bb))) return { cost: Infinity, xa: NaN, xb: NaN }
+  const xa = (ay * bb - ab * by) / det
+  const xb = (aa * by - ab * ay) / det
+  return { cost: yy - (xa * ay + xb * by), xa, xb }
 }
 
 export interface KnownCardRequest {
@@ -270,8 +272,8 @@ export function fitEdgeWithKnownCard(r: KnownCardRequest): number | null {
     positions.push(e)
     const pe = (k: number) => steps.at(k, i)
     costs.push(e < b
-      ? twoLevelResidual(k0, k1, (k) => 1 - pe(k), (k) => behind[k], (k) => profile[k] - cardLevel * (pe(k) - behind[k]))
-      : twoLevelResidual(k0, k1, (k) => 1 - pe(k), pe, (k) => profile[k]))
+      ? twoLevelFit(k0, k1, (k) => 1 - pe(k), (k) => behind[k], (k) => profile[k] - cardLevel * (pe(k) - behind[k])).cost
+      : twoLevelFit(k0, k1, (k) => 1 - pe(k), pe, (k) => profile[k]).cost)
   }
   const best = bestPosition(costs, positions, 1 / SCAN_PER_PX)
   return best ? best.at : null
@@ -289,30 +291,11 @@ export function levelOutsideEdge(profile: ArrayLike<number>, from: number, guess
   let best = Infinity
   let level: number | null = null
   for (let e = guess - 1.5; e <= guess + 1.5 + 1e-9; e += 0.1) {
-    let n = 0
-    let se = 0
-    let see = 0
-    let sy = 0
-    let sey = 0
-    let syy = 0
-    for (let k = k0; k <= k1; k++) {
-      const u = normalCdf((from + k - e) / sigma)
-      const y = profile[k]
-      n++
-      se += u
-      see += u * u
-      sy += y
-      sey += u * y
-      syy += y * y
-    }
-    const det = n * see - se * se
-    if (!(det > 1e-9 * Math.max(1, n * see))) continue
-    const steel = (sy * see - se * sey) / det
-    const rise = (n * sey - se * sy) / det
-    const cost = syy - (steel * sy + rise * sey)
-    if (cost < best) {
-      best = cost
-      level = steel + rise
+    const u = (k: number) => normalCdf((from + k - e) / sigma)
+    const fit = twoLevelFit(k0, k1, (k) => 1 - u(k), u, (k) => profile[k])
+    if (fit.cost < best) {
+      best = fit.cost
+      level = fit.xb
     }
   }
   return level
