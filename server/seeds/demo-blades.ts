@@ -16,8 +16,8 @@ import type { SeedStep } from './index'
  * The generated scene behind the demo photos. The wear history photographs it ten times (two blades, five visits, the
  * touch point moved back each time), so it must be a scene the engine reads well on every one of them, or the demo's
  * history shows the engine's noise instead of the wear: seed 11 refused two of the ten and read the touch point up to
- * 22 mm off; seed 47 measures all ten within 1.0 mm (touch point) and 0.3 mm (heel lift) at engine-1.5.4. Scanning
- * seeds 20–49 the same way, 25 of 30 measured all ten and 7 of those kept within 2.5 mm.
+ * 22 mm off; seed 47 measures all ten within 1.0 mm (touch point) and 0.3 mm (heel lift) at engine-1.5.4 and 1.6.0.
+ * Scanning seeds 20–49 the same way at engine-1.5.4, 25 of 30 measured all ten and 7 of those kept within 2.5 mm.
  */
 export const DEMO_SCENE_SEED = 47
 export function demoScene(toe?: 'left' | 'right') {
