@@ -207,18 +207,21 @@ export function fitEdgeWithBoundary(r: StepFitRequest): number | null {
   return one ? one.at : null
 }
 
-/** Least-squares fit of y on two columns a and b over k0..k1 (each given per k): residual and coefficients. */
-function twoLevelFit(k0: number, k1: number, a: (k: number) => number, b: (k: number) => number, y: (k: number) => number): { cost: number; xa: number; xb: number } {
+/**
+ * Least-squares fit of y on two columns a and b over their first n entries: residual and coefficients. The callers
+ * fill the columns once per edge position, so the pixel loop carries no call.
+ */
+function twoLevelFit(a: Float64Array, b: Float64Array, y: Float64Array, n: number): { cost: number; xa: number; xb: number } {
   let aa = 0
   let ab = 0
   let bb = 0
   let ay = 0
   let by = 0
   let yy = 0
-  for (let k = k0; k <= k1; k++) {
-    const u = a(k)
-    const v = b(k)
-    const w = y(k)
+  for (let k = 0; k < n; k++) {
+    const u = a[k]
+    const v = b[k]
+    const w = y[k]
     aa += u * u
     ab += u * v
     bb += v * v
@@ -231,6 +234,11 @@ function twoLevelFit(k0: number, k1: number, a: (k: number) => number, b: (k: nu
   const xa = (ay * bb - ab * by) / det
   const xb = (aa * by - ab * ay) / det
   return { cost: yy - (xa * ay + xb * by), xa, xb }
+}
+
+/** Three scratch columns of n entries for twoLevelFit. */
+function columns(n: number): [Float64Array, Float64Array, Float64Array] {
+  return [new Float64Array(n), new Float64Array(n), new Float64Array(n)]
 }
 
 export interface KnownCardRequest {
@@ -267,32 +275,19 @@ export function fitEdgeWithKnownCard(r: KnownCardRequest): number | null {
   for (let k = k0; k <= k1; k++) behind[k] = normalCdf((from + k - b) / sigma)
   const costs: number[] = []
   const positions: number[] = []
-  // The two-level normal equations summed inline: this scan runs some ninety times for each sample near the card's
-  // edge, and a call per pixel would double the engine's time there.
+  const n = k1 - k0 + 1
+  const [a, c, y] = columns(n)
   for (let i = 0; i < count; i++) {
     const e = first + i / SCAN_PER_PX
     positions.push(e)
     const strip = e < b
-    let aa = 0
-    let ab = 0
-    let bb = 0
-    let ay = 0
-    let by = 0
-    let yy = 0
     for (let k = k0; k <= k1; k++) {
       const pe = steps.at(k, i)
-      const u = 1 - pe
-      const v = strip ? behind[k] : pe
-      const w = strip ? profile[k] - cardLevel * (pe - behind[k]) : profile[k]
-      aa += u * u
-      ab += u * v
-      bb += v * v
-      ay += u * w
-      by += v * w
-      yy += w * w
+      a[k - k0] = 1 - pe
+      c[k - k0] = strip ? behind[k] : pe
+      y[k - k0] = strip ? profile[k] - cardLevel * (pe - behind[k]) : profile[k]
     }
-    const det = aa * bb - ab * ab
-    costs.push(det > 1e-9 * Math.max(1, aa * bb) ? yy - (ay * (ay * bb - ab * by) + by * (aa * by - ab * ay)) / det : Infinity)
+    costs.push(twoLevelFit(a, c, y, n).cost)
   }
   const best = bestPosition(costs, positions, 1 / SCAN_PER_PX)
   return best ? best.at : null
@@ -309,9 +304,15 @@ export function levelOutsideEdge(profile: ArrayLike<number>, from: number, guess
   if (k1 - k0 < 5) return null
   let best = Infinity
   let level: number | null = null
+  const n = k1 - k0 + 1
+  const [a, c, y] = columns(n)
+  for (let k = k0; k <= k1; k++) y[k - k0] = profile[k]
   for (let e = guess - 1.5; e <= guess + 1.5 + 1e-9; e += 0.1) {
-    const u = (k: number) => normalCdf((from + k - e) / sigma)
-    const fit = twoLevelFit(k0, k1, (k) => 1 - u(k), u, (k) => profile[k])
+    for (let k = k0; k <= k1; k++) {
+      c[k - k0] = normalCdf((from + k - e) / sigma)
+      a[k - k0] = 1 - c[k - k0]
+    }
+    const fit = twoLevelFit(a, c, y, n)
     if (fit.cost < best) {
       best = fit.cost
       level = fit.xb
