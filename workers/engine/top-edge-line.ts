@@ -26,11 +26,11 @@ function near(line: Line, pts: Pt[], tolMm: number): Pt[] {
 
 /**
  * The line through two of the points (at least `minSpanMm` apart in x) that gathers the most `score` among the
- * points within `tolMm` of it, polished by least squares on those points. Exhaustive over a thinned set of points.
- * When the score looks only at some of the points, passing just those as `scored` gives the same line for less
- * work: the thousands of candidate lines are the engine's largest cost after the edge fits.
+ * points of `scored` within `tolMm` of it, polished by least squares on the points of `pts` near it. Exhaustive over a
+ * thinned set of points. The score reads only the points inside the plates' gap, so only those are passed as
+ * `scored`: the thousands of candidate lines are the engine's largest cost after the edge fits.
  */
-function bestLine(pts: Pt[], tolMm: number, minSpanMm: number, score: (inliers: Pt[]) => number, scored: Pt[] = pts): Line | null {
+function bestLine(pts: Pt[], scored: Pt[], tolMm: number, minSpanMm: number, score: (inliers: Pt[]) => number): Line | null {
   const step = Math.max(1, Math.floor(pts.length / 120))
   const seeds = pts.filter((_, i) => i % step === 0)
   let best: { line: Line; score: number } | null = null
@@ -138,14 +138,15 @@ const TAIL_REACH_MM = 8
  */
 export function chooseLine(pts: Pt[], b: Placed): { line: Line; parts: Pt[][] } | null {
   const inGap = (p: Pt) => b.along(p[0]) >= GAP_WINDOW[0] && b.along(p[0]) <= GAP_WINDOW[1]
-  const gapLength = (inliers: Pt[]) => lengthOf(stretches(inliers.filter(inGap), 2, MIN_STRETCH_MM))
-  const first = bestLine(pts, LINE_TOLERANCE_MM, 10, gapLength, pts.filter(inGap))
+  const stretchLength = (gapPoints: Pt[]) => lengthOf(stretches(gapPoints, 2, MIN_STRETCH_MM))
+  const gapLength = (inliers: Pt[]) => stretchLength(inliers.filter(inGap))
+  const first = bestLine(pts, pts.filter(inGap), LINE_TOLERANCE_MM, 10, stretchLength)
   if (!first) return null
   const firstIn = near(first, pts, LINE_TOLERANCE_MM)
   const support = gapLength(firstIn)
   if (support < MIN_FOUND_MM) return null
   const rest = pts.filter((p) => Math.abs(residual(first, p)) > 1)
-  const second = rest.length >= 10 ? bestLine(rest, LINE_TOLERANCE_MM, 10, gapLength, rest.filter(inGap)) : null
+  const second = rest.length >= 10 ? bestLine(rest, rest.filter(inGap), LINE_TOLERANCE_MM, 10, stretchLength) : null
   if (second && gapLength(near(second, rest, LINE_TOLERANCE_MM)) >= AMBIGUOUS_SHARE * support) return null
   const kept = firstIn.filter((p) => heightOf(b, p) >= MIN_RUNNER_HEIGHT_MM && heightOf(b, p) <= MAX_RUNNER_HEIGHT_MM)
   const parts = plausibleStretches(b, stretches(kept, 2, MIN_STRETCH_MM))
