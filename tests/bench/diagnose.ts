@@ -2,9 +2,11 @@
  * Engine diagnosis for one synthetic photo: where the traced bottom edge departs from the true one (card mm, per 10 mm
  * along the blade and point by point around the base pick), the metrics the same geometry gives on the true edge, and
  * how far the engine's landmarks lie from the true ones.
- *   npx tsx tests/bench/diagnose.ts SEED [12mp|3mp]
+ *   npx tsx tests/bench/diagnose.ts SEED [12mp|3mp] [--ideal-lens] [--no-shadow] [--no-noise]
+ * The switches take one cause of error out of the photo (lens distortion, the runner's shadow on the card, sensor
+ * noise and JPEG loss), to see how much of an error each explains.
  */
-import { renderScene, sampleScene, type Resolution } from '../../fixtures/synthetic'
+import { renderScene, sampleScene, type Resolution, type Scene } from '../../fixtures/synthetic'
 import { extractEdge } from '../../workers/engine/extract'
 import { measureProfile } from '../../shared/geometry/measure-profile'
 import { analyzePhoto } from '../../workers/engine/analyze'
@@ -27,9 +29,10 @@ function signedDistance(p: Vec2, line: Vec2[]): { d: number; i: number } {
 }
 
 async function main(): Promise<void> {
-  const seed = Number(process.argv[2] ?? 1000)
-  const resolution = (process.argv[3] ?? '12mp') as Resolution
-  const scene = sampleScene(seed, { resolution })
+  const [seedArg, resolutionArg] = process.argv.slice(2).filter((a) => !a.startsWith('--'))
+  const seed = Number(seedArg ?? 1000)
+  const resolution = (resolutionArg ?? '12mp') as Resolution
+  const scene = withoutCauses(sampleScene(seed, { resolution }), new Set(process.argv.filter((a) => a.startsWith('--'))))
   const photo = await renderScene(scene)
   const truth = photo.truth
   const m = truth.metrics
@@ -79,6 +82,17 @@ async function main(): Promise<void> {
     const rel = (q: number[], t: number[]) => `(${((q[0] - t[0]) * dirX).toFixed(2)}, ${(q[1] - t[1]).toFixed(2)})`
     console.log(`  B off truth ${rel(r.landmarks.basePick.cardMm, truth.basePickMm)}  T off truth ${rel(r.landmarks.touchPoint.cardMm, truth.touchPointMm)}`)
   }
+}
+
+/** The scene with the causes of error named by the switches removed. */
+function withoutCauses(scene: Scene, switches: Set<string>): Scene {
+  if (switches.has('--ideal-lens')) {
+    const c = scene.camera
+    Object.assign(c, { k1: 0, k2: 0, cx: (c.width - 1) / 2, cy: (c.height - 1) / 2 })
+  }
+  if (switches.has('--no-shadow')) scene.look.shadow.strength = 0
+  if (switches.has('--no-noise')) Object.assign(scene.look, { noise: { read: 0, shot: 0 }, jpegQuality: 100 })
+  return scene
 }
 
 function densify(line: Vec2[], step: number): Vec2[] {
