@@ -302,14 +302,17 @@ export function levelOutsideEdge(profile: ArrayLike<number>, from: number, guess
   const k0 = Math.max(0, Math.floor(guess - 4 * sigma - 3 - from))
   const k1 = Math.min(profile.length - 1, Math.round(guess + 2 - from))
   if (k1 - k0 < 5) return null
+  const reach = 1.5
+  const count = Math.round(2 * reach * SCAN_PER_PX) + 1
+  const steps = new SteppedCdf(from, k0, k1, guess - reach, count, sigma)
   let best = Infinity
   let level: number | null = null
   const n = k1 - k0 + 1
   const [a, c, y] = columns(n)
   for (let k = k0; k <= k1; k++) y[k - k0] = profile[k]
-  for (let e = guess - 1.5; e <= guess + 1.5 + 1e-9; e += 0.1) {
+  for (let i = 0; i < count; i++) {
     for (let k = k0; k <= k1; k++) {
-      c[k - k0] = normalCdf((from + k - e) / sigma)
+      c[k - k0] = steps.at(k, i)
       a[k - k0] = 1 - c[k - k0]
     }
     const fit = twoLevelFit(a, c, y, n)

@@ -242,7 +242,7 @@ interface WideStrip {
 
 /** Strip widths (px between the gradient peak and the card's bottom edge) at which the card's level beside the steel is read. */
 const WIDE_STRIP_PX = [4, 10] as const
-/** Fewest wide strips for the reading to be used; at most this many are read. */
+/** Fewest wide strips for the reading to be used; beyond MAX_WIDE_STRIPS every k-th is read (under twice as many). */
 const MIN_WIDE_STRIPS = 10
 const MAX_WIDE_STRIPS = 80
 /** How far into the steel the edge is searched once the card's level is known, px. */
